@@ -1,0 +1,17 @@
+using System.Globalization;
+using PairFit.Core.Results;
+
+namespace PairFit.Cli;
+
+/// <summary>The readable console summary of an analysis.</summary>
+public static class ConsoleSummary
+{
+    public static void Write(AnalysisResults r, TextWriter w)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        w.WriteLine($"Data: {r.Input.File ?? "(in memory)"}  x = {r.Input.XColumn}, y = {r.Input.YColumn}");
+        w.WriteLine($"Rows: {r.Input.RowsRead} read, {r.Input.RowsUsed} used, {r.Input.RowsRead - r.Input.RowsUsed} dropped");
+        foreach (var (reason, count) in r.Input.Dropped)
+            w.WriteLine($"  dropped {count,8}  {reason}");
+    }
+}

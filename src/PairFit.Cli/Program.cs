@@ -1,0 +1,3 @@
+using PairFit.Cli;
+
+return PairFitCli.Run(args, Console.Out, Console.Error);
