@@ -94,7 +94,10 @@ public sealed class InversionChain
                     return null;
             }
         }
-        return new InversionChain(steps.ToArray(), flat);
+        var chain = new InversionChain(steps.ToArray(), flat);
+        // Each two-branch step may double the number of intervals; beyond this the stack buffers
+        // would grow too large, and Monte Carlo is the better tool anyway.
+        return chain.DoublingSteps > MaxDoublingSteps ? null : chain;
     }
 
     private static bool IsConstant(ExpressionNode n, out double value)
@@ -157,14 +160,18 @@ public sealed class InversionChain
     }
 
     /// <summary>Largest number of intervals a preimage can have: each step with two branches (or a branch and a flat piece) may double it.</summary>
-    public int MaxIntervals
+    public int MaxIntervals => 1 << Math.Min(DoublingSteps, MaxDoublingSteps);
+
+    private const int MaxDoublingSteps = 8;
+
+    private int DoublingSteps
     {
         get
         {
             int doubling = 0;
             foreach (var s in _steps)
                 if (s.Kind is StepKind.SiblingOver or StepKind.Abs or StepKind.Min or StepKind.Max or StepKind.PowerOfSibling) doubling++;
-            return 1 << Math.Min(doubling, 12);
+            return doubling;
         }
     }
 

@@ -195,6 +195,19 @@ public sealed class QuadratureDistribution
                 prev = cur;
             }
         }
+        // Grade panels geometrically towards every jump: near a zero of a divisor or multiplier
+        // the integrand can have a spike as narrow as the tail probability being computed
+        // (the ratio's far tail lives entirely within |x| ≲ |y/q|), which a coarse panel would step over.
+        int found = breaks.Count;
+        for (int i = GradedBreaks.Length; i < found; i++)
+        {
+            double root = breaks[i];
+            for (double d = 1e-2; d > 1e-13; d *= 1e-2)
+            {
+                if (root - d > GradedBreaks[0]) breaks.Add(root - d);
+                if (root + d < GradedBreaks[^1]) breaks.Add(root + d);
+            }
+        }
         breaks.Sort();
         // Drop near-duplicates so no panel is degenerate.
         var distinct = new List<double> { breaks[0] };
