@@ -23,6 +23,8 @@ public static class PairFitCli
         {
             DescribeCommand.Build(),
             AnalyzeCommand.Build(),
+            ProjectCommand.Build(),
+            JointCommand.Build(),
         };
         return root;
     }
