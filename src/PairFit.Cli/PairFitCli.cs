@@ -23,6 +23,7 @@ public static class PairFitCli
         {
             DescribeCommand.Build(),
             AnalyzeCommand.Build(),
+            DemoCommand.Build(),
             GenerateDemoDataCommand.Build(),
         };
         return root;
