@@ -27,6 +27,25 @@ public static class TailDependence
     /// </summary>
     public static TailDependenceCurve Curve(ReadOnlySpan<double> u, ReadOnlySpan<double> v, ReadOnlySpan<double> thresholds)
     {
+        var (larger, smaller) = SortedMaxMin(u, v);
+        int n = larger.Length;
+        int g = thresholds.Length;
+        var ts = thresholds.ToArray();
+        var lower = new double[g];
+        var upper = new double[g];
+        for (int k = 0; k < g; k++)
+        {
+            double t = ts[k];
+            var (below, above) = JointCounts(larger, smaller, t);
+            lower[k] = below / (n * t);
+            upper[k] = above / (n * (1 - t));
+        }
+        return new TailDependenceCurve(ts, lower, upper);
+    }
+
+    /// <summary>max(u, v) and min(u, v) of each pair, each sorted ascending.</summary>
+    private static (double[] Larger, double[] Smaller) SortedMaxMin(ReadOnlySpan<double> u, ReadOnlySpan<double> v)
+    {
         if (u.Length != v.Length) throw new ArgumentException($"u has {u.Length} values and v has {v.Length}; tail dependence needs pairs.");
         int n = u.Length;
         if (n == 0) throw new ArgumentException("tail dependence needs at least one pair.");
@@ -39,22 +58,14 @@ public static class TailDependence
         }
         Array.Sort(larger);
         Array.Sort(smaller);
+        return (larger, smaller);
+    }
 
-        int g = thresholds.Length;
-        var ts = thresholds.ToArray();
-        var lower = new double[g];
-        var upper = new double[g];
-        for (int k = 0; k < g; k++)
-        {
-            double t = ts[k];
-            if (!(t > 0 && t < 1)) throw new ArgumentOutOfRangeException(nameof(thresholds), $"threshold {t} is not inside (0, 1).");
-            // u ≤ t and v ≤ t  ⇔  max(u, v) ≤ t;   u > t and v > t  ⇔  min(u, v) > t.
-            int jointlyBelow = CountAtMost(larger, t);
-            int jointlyAbove = n - CountAtMost(smaller, t);
-            lower[k] = jointlyBelow / (n * t);
-            upper[k] = jointlyAbove / (n * (1 - t));
-        }
-        return new TailDependenceCurve(ts, lower, upper);
+    /// <summary>#{u ≤ t, v ≤ t} and #{u &gt; t, v &gt; t}: u ≤ t and v ≤ t ⇔ max(u, v) ≤ t; u &gt; t and v &gt; t ⇔ min(u, v) &gt; t.</summary>
+    private static (int Below, int Above) JointCounts(double[] sortedLarger, double[] sortedSmaller, double t)
+    {
+        if (!(t > 0 && t < 1)) throw new ArgumentOutOfRangeException(nameof(t), $"threshold {t} is not inside (0, 1).");
+        return (CountAtMost(sortedLarger, t), sortedSmaller.Length - CountAtMost(sortedSmaller, t));
     }
 
     /// <summary>The curve of a paired sample on its own pseudo-observations.</summary>
@@ -82,8 +93,11 @@ public static class TailDependence
         if (k >= n) k = n - 1;
         if (k < 1) throw new ArgumentException("tail dependence needs at least two pairs.");
         double tLow = (double)k / n, tHigh = 1 - (double)k / n;
-        var c = Curve(u, v, [tLow, tHigh]);
-        return (c.Lower[0], c.Upper[1], tHigh, k);
+        var (larger, smaller) = SortedMaxMin(u, v);
+        // n·t = k exactly in theory; divide by the integer k so that a full count gives exactly 1.
+        int below = JointCounts(larger, smaller, tLow).Below;
+        int above = JointCounts(larger, smaller, tHigh).Above;
+        return ((double)below / k, (double)above / k, tHigh, k);
     }
 
     /// <summary>Number of entries ≤ t in an ascending array (upper bound by binary search).</summary>
