@@ -21,8 +21,6 @@ internal sealed record CsvLayout(char Delimiter, bool DecimalComma, string[] Hea
         return new CsvLayout(delimiter, decimalComma, header);
     }
 
-    public static string DelimiterName(char d) => d switch { ',' => "comma", ';' => "semicolon", '\t' => "tab", _ => $"'{d}'" };
-
     /// <summary>
     /// The candidate (comma, semicolon, tab) that occurs most often outside quotes on the header
     /// line. A header with two candidates equally often is ambiguous and must be settled by
@@ -46,7 +44,7 @@ internal sealed record CsvLayout(char Delimiter, bool DecimalComma, string[] Hea
         for (int k = 0; k < counts.Length; k++)
             if (k != best && counts[k] == counts[best])
                 throw new PairFitInputException(
-                    $"{path}: the header line mixes delimiters ({DelimiterName(CandidateDelimiters[best])} and {DelimiterName(CandidateDelimiters[k])} "
+                    $"{path}: the header line mixes delimiters ({CsvOptions.DelimiterName(CandidateDelimiters[best])} and {CsvOptions.DelimiterName(CandidateDelimiters[k])} "
                     + $"{counts[best]} times each); say which one separates the columns with --delimiter.");
         return CandidateDelimiters[best];
     }
@@ -127,6 +125,19 @@ internal sealed record CsvLayout(char Delimiter, bool DecimalComma, string[] Hea
         string available = string.Join(", ", Enumerable.Range(0, Math.Min(listed, Header.Length)).Select(ColumnLabel))
             + (Header.Length > listed ? $", ... ({Header.Length - listed} more)" : "");
         throw new PairFitInputException($"{optionName} '{text}' is not a column of '{path}'; the columns are: {available}.");
+    }
+
+    /// <summary>
+    /// Every data row must have as many fields as the header; a ragged row usually means mixed
+    /// delimiters or an unquoted delimiter inside a value, so the error names the line and the delimiter.
+    /// </summary>
+    public void RequireFullRow(DelimitedRecordReader reader, string path)
+    {
+        if (reader.FieldCount == Header.Length) return;
+        throw new PairFitInputException(
+            $"{path}: line {reader.LineNumber} has {reader.FieldCount} field(s) but the header has {Header.Length} "
+            + $"(delimiter: {CsvOptions.DelimiterName(Delimiter)}); mixed delimiters or an unquoted delimiter inside a value? "
+            + "Fix that line, quote the value, or set --delimiter.");
     }
 
     /// <summary>The header name of column <paramref name="index"/>, or "column N" when the header cell is empty.</summary>

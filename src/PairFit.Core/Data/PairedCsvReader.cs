@@ -11,8 +11,7 @@ namespace PairFit.Core.Data;
 /// <list type="bullet">
 /// <item>The first non-blank line is the header. Delimiter and decimal mark come from
 /// <see cref="CsvOptions"/> or are detected (<see cref="CsvLayout"/>).</item>
-/// <item>Every data row must have as many fields as the header (a ragged row usually means
-/// mixed delimiters or an unquoted delimiter inside a value); the error names its line.</item>
+/// <item>Every data row must have as many fields as the header (<see cref="CsvLayout.RequireFullRow"/>).</item>
 /// <item>A row whose x or y is missing (empty, NA, NaN, null, a user token) or not a number is
 /// dropped and counted under a reason such as "missing x" or "non-numeric y"; the first
 /// <see cref="ExampleRowsPerReason"/> data row numbers of each reason are kept.</item>
@@ -49,15 +48,10 @@ public static class PairedCsvReader
         using (var reader = DelimitedRecordReader.Open(path, layout.Delimiter))
         {
             reader.ReadRecord(); // header, already parsed by the layout
-            int expected = layout.Header.Length;
             while (reader.ReadRecord())
             {
                 rowsRead++;
-                if (reader.FieldCount != expected)
-                    throw new PairFitInputException(
-                        $"{path}: line {reader.LineNumber} has {reader.FieldCount} field(s) but the header has {expected} "
-                        + $"(delimiter: {CsvLayout.DelimiterName(layout.Delimiter)}); mixed delimiters or an unquoted delimiter inside a value? "
-                        + "Fix that line, quote the value, or set --delimiter.");
+                layout.RequireFullRow(reader, path);
 
                 var kx = Classify(parser, reader, xi, xName, path, out double vx, ref xStats);
                 var ky = Classify(parser, reader, yi, yName, path, out double vy, ref yStats);
