@@ -37,7 +37,6 @@ public static class EmpiricalCopula
         Array.Sort(uKeys, uOrder);
 
         var tree = new int[dense + 1];
-        double scale = 1.0 / n;
         int start = 0;
         while (start < n)
         {
@@ -49,7 +48,7 @@ public static class EmpiricalCopula
             {
                 int count = 0;
                 for (int r = vRank[uOrder[k]]; r > 0; r -= r & -r) count += tree[r];
-                result[uOrder[k]] = count * scale;
+                result[uOrder[k]] = (double)count / n;
             }
             start = end;
         }
