@@ -23,6 +23,7 @@ public static class PairFitCli
         {
             DescribeCommand.Build(),
             AnalyzeCommand.Build(),
+            SimulateCommand.Build(),
         };
         return root;
     }

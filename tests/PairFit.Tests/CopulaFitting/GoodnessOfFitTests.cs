@@ -61,15 +61,15 @@ public class GoodnessOfFitTests
     [Trait("Category", "Slow")]
     public void PValuesAreRoughlyUniformUnderTheTrueFamily()
     {
-        // Calibration study: 60 data sets of n = 150 from Clayton θ = 2, B = 60 replicates each.
+        // Calibration study: 40 data sets of n = 100 from Clayton θ = 2, B = 40 replicates each.
         // Under H0 the bootstrap p-value is close to uniform (Genest, Rémillard and Beaudoin 2009, section 5).
-        // Kolmogorov–Smirnov distance to U(0,1): the 1 % critical value for m = 60 is 1.63/√60 ≈ 0.21 (Massey 1951,
+        // Kolmogorov–Smirnov distance to U(0,1): the 1 % critical value for m = 40 is 1.63/√40 ≈ 0.26 (Massey 1951,
         // Table 1, asymptotic form), widened by 1/(B+1) for the discreteness of the bootstrap p-value.
-        const int m = 60, b = 60;
+        const int m = 40, b = 40;
         var p = new double[m];
         for (int k = 0; k < m; k++)
         {
-            var (u, v) = Pseudo(new ClaytonCopula(2.0), 150, 70_000 + k);
+            var (u, v) = Pseudo(new ClaytonCopula(2.0), 100, 70_000 + k);
             var fitted = FitPseudo(ClaytonCopula.Family, 0, u, v);
             p[k] = CramerVonMisesGof.Test(ClaytonCopula.Family, fitted, u, v, b, seed: k).PValue;
         }
@@ -78,6 +78,6 @@ public class GoodnessOfFitTests
         for (int k = 0; k < m; k++) d = Math.Max(d, Math.Max((k + 1.0) / m - p[k], p[k] - (double)k / m));
         Assert.True(d < 1.63 / Math.Sqrt(m) + 1.0 / (b + 1), $"KS distance {d:F3}; p-values {string.Join(" ", p.Select(x => x.ToString("F2")))}");
         int small = p.Count(x => x <= 0.05);
-        Assert.True(small <= 9, $"{small}/{m} p-values ≤ 0.05 (expected about 3)");
+        Assert.True(small <= 7, $"{small}/{m} p-values ≤ 0.05 (expected about 2)");
     }
 }

@@ -23,6 +23,29 @@ public sealed record JointEstimate
 /// </summary>
 public static class FullLikelihoodFit
 {
+    /// <summary>
+    /// Simplex steps of about one standard error per coordinate, 1/√(−∂²ℓ/∂p_i²) from a second difference
+    /// at the start, so the simplex is neither lost on a flat scale nor stuck on a steep one; 5 % of |p| where
+    /// the curvature has the wrong sign.
+    /// </summary>
+    private static void InitialSteps(Func<double[], double> logLik, double[] start, double[] step)
+    {
+        double f0 = logLik(start);
+        var p = (double[])start.Clone();
+        for (int i = 0; i < start.Length; i++)
+        {
+            double h = 1e-3 * Math.Max(Math.Abs(start[i]), 1e-2);
+            p[i] = start[i] + h;
+            double up = logLik(p);
+            p[i] = start[i] - h;
+            double down = logLik(p);
+            p[i] = start[i];
+            double curvature = (up - 2 * f0 + down) / (h * h);
+            double fallback = 0.05 * Math.Max(Math.Abs(start[i]), 1e-2);
+            step[i] = curvature < 0 && double.IsFinite(curvature) ? Math.Min(1 / Math.Sqrt(-curvature), fallback * 20) : fallback;
+        }
+    }
+
     public static JointEstimate Fit(PairedSample sample, IMarginalDistribution x0, IMarginalDistribution y0,
         ICopulaFamily family, int rotation, CopulaEstimate ifm, int? maxDegreeOfParallelism = null)
     {
@@ -70,19 +93,18 @@ public static class FullLikelihoodFit
         for (int i = 0; i < ky; i++) start[kx + i] = y0.Parameters[i];
         for (int i = 0; i < k; i++)
         {
-            step[i] = 0.05 * Math.Max(Math.Abs(start[i]), 1e-3);
             lo[i] = -1e12;
             hi[i] = 1e12;
         }
         for (int i = 0; i < kc; i++)
         {
             start[kx + ky + i] = transforms[i].ToFree(ifm.Parameters[i]);
-            step[kx + ky + i] = 0.05;
             lo[kx + ky + i] = transforms[i].FreeMin;
             hi[kx + ky + i] = transforms[i].FreeMax;
         }
+        InitialSteps(LogLik, start, step);
 
-        var found = Minimizers.NelderMead(p => -LogLik(p), start, step, lo, hi, maxEvaluations: 400 * k + 400);
+        var found = Minimizers.NelderMead(p => -LogLik(p), start, step, lo, hi, xTolerance: 1e-5, maxEvaluations: 400 * k + 400);
         var best = found.Point;
         var model = Build(best) ?? throw new CopulaFitFailedException("the joint likelihood is not finite at any point the search reached");
 
