@@ -19,14 +19,18 @@ public sealed class QuadratureDistribution
 {
     private static readonly double[] GradedBreaks =
     [
-        1e-300, 1e-30, 1e-13, 1e-9, 1e-6, 1e-4, 1e-3, 0.01, 0.05, 0.15, 0.3, 0.5, 0.7, 0.85, 0.95, 0.99, 0.999,
-        1 - 1e-4, 1 - 1e-6, 1 - 1e-9, 1 - 1e-13, 1 - 1.0 / (1L << 53),
+        1e-300, 1e-16, 1e-9, 1e-5, 1e-3, 0.02, 0.1, 0.3, 0.5, 0.7, 0.9, 0.98, 0.999,
+        1 - 1e-5, 1 - 1e-9, 1 - 1e-13, 1 - 1.0 / (1L << 53),
     ];
 
     // Absolute tolerance far below any probability of interest, so that small tail probabilities
     // are computed to the relative tolerance; QUADPACK's round-off floor stops needless refinement.
     private const double AbsoluteTolerance = 1e-15;
     private const double RelativeTolerance = 1e-9;
+
+    // For figure grids and integrals over many CDF values, where 1e−7 is far below what shows.
+    private const double CoarseAbsoluteTolerance = 1e-12;
+    private const double CoarseRelativeTolerance = 1e-7;
 
     private readonly JointModel _model;
     private readonly InversionChain _chain;
@@ -60,39 +64,41 @@ public sealed class QuadratureDistribution
     }
 
     /// <summary>P(Q ≤ q).</summary>
-    public double Cdf(double q) => Probability(new DualInterval(Dual.Constant(double.NegativeInfinity), new Dual(q, 1.0)));
+    public double Cdf(double q, bool coarse = false) => Probability(new DualInterval(Dual.Constant(double.NegativeInfinity), new Dual(q, 1.0)), coarse);
 
     /// <summary>P(Q &gt; q), integrated directly so that small tail probabilities keep their relative accuracy.</summary>
-    public double Survival(double q) => Probability(new DualInterval(new Dual(q, 1.0), Dual.Constant(double.PositiveInfinity)));
+    public double Survival(double q, bool coarse = false) => Probability(new DualInterval(new Dual(q, 1.0), Dual.Constant(double.PositiveInfinity)), coarse);
 
     /// <summary>P(Q is defined), below 1 when g is undefined on part of the support (log of a negative, 0/0).</summary>
     public double DefinedProbability() => Probability(new DualInterval(Dual.Constant(double.NegativeInfinity), Dual.Constant(double.PositiveInfinity)));
 
     /// <summary>f_Q(q) by the delta-function identity, or by differentiating the CDF where g has flat pieces in y.</summary>
-    public double Density(double q, double step)
+    public double Density(double q, double step, bool coarse = false)
     {
         if (_chain.HasFlatPieces)
             return Math.Max(0.0, (Cdf(q + step) - Cdf(q - step)) / (2 * step));
         var target = new DualInterval(Dual.Constant(double.NegativeInfinity), new Dual(q, 1.0));
-        return Math.Max(0.0, Integrate(target, u => DensityIntegrand(u, target), (i) => DensityIntegrand(i, target)));
+        return Math.Max(0.0, Integrate(target, u => DensityIntegrand(u, target), (i) => DensityIntegrand(i, target), coarse));
     }
 
-    private double Probability(DualInterval target)
-        => Math.Clamp(Integrate(target, u => ProbabilityIntegrand(u, target), i => ProbabilityIntegrand(i, target)), 0.0, 1.0);
+    private double Probability(DualInterval target, bool coarse = false)
+        => Math.Clamp(Integrate(target, u => ProbabilityIntegrand(u, target), i => ProbabilityIntegrand(i, target), coarse), 0.0, 1.0);
 
-    private double Integrate(DualInterval target, Func<double, double> atU, Func<int, double> atNode)
+    private double Integrate(DualInterval target, Func<double, double> atU, Func<int, double> atNode, bool coarse)
     {
+        double absolute = coarse ? CoarseAbsoluteTolerance : AbsoluteTolerance;
+        double relative = coarse ? CoarseRelativeTolerance : RelativeTolerance;
         var jumps = _chain.HasFlatPieces ? FlatPieceJumps(target) : null;
         if (jumps is { Count: > 0 })
         {
             var breaks = new List<double>(_breaks);
             breaks.AddRange(jumps);
             breaks.Sort();
-            return AdaptiveQuadrature.Integrate(atU, breaks.ToArray(), AbsoluteTolerance, RelativeTolerance);
+            return AdaptiveQuadrature.Integrate(atU, breaks.ToArray(), absolute, relative);
         }
         var initial = new double[_nodeU.Length];
         for (int i = 0; i < initial.Length; i++) initial[i] = atNode(i);
-        return AdaptiveQuadrature.Integrate(atU, _breaks, AbsoluteTolerance, RelativeTolerance, initial: initial);
+        return AdaptiveQuadrature.Integrate(atU, _breaks, absolute, relative, initial: initial);
     }
 
     /// <summary>
