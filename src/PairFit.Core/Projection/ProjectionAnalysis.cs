@@ -187,12 +187,15 @@ public static class ProjectionAnalysis
 
         var (bracketLo, bracketHi) = PilotBracket(model, program, o.Seed);
         double Quantile(double p) => InvertCdf(F, S, p, bracketLo, bracketHi);
+        // The tail index needs its far quantiles to a few digits only.
+        double FCoarse(double q) => Math.Min(1.0, qd.Cdf(q, coarse: true) / m);
+        double TailQuantile(double p) => InvertCdf(FCoarse, SCoarse, p, bracketLo, bracketHi, relativeTolerance: 1e-6);
 
         double median = Quantile(0.5);
         double scale = Quantile(0.75) - Quantile(0.25);
         if (!(scale > 0)) scale = Math.Max(Math.Abs(median), 1.0);
-        double lowerIndex = SampleStatistics.TailIndex(1e-4, 1e-6, median - Quantile(1e-4), median - Quantile(1e-6));
-        double upperIndex = SampleStatistics.TailIndex(1e-4, 1e-6, Quantile(1 - 1e-4) - median, Quantile(1 - 1e-6) - median);
+        double lowerIndex = SampleStatistics.TailIndex(1e-4, 1e-6, median - TailQuantile(1e-4), median - TailQuantile(1e-6));
+        double upperIndex = SampleStatistics.TailIndex(1e-4, 1e-6, TailQuantile(1 - 1e-4) - median, TailQuantile(1 - 1e-6) - median);
         var exist = MomentsExist(lowerIndex, upperIndex, notes);
 
         double? mean = null, sd = null;
@@ -271,7 +274,8 @@ public static class ProjectionAnalysis
     /// regula falsi (Dowell and Jarratt 1971), which keeps the bracket, converges superlinearly and
     /// stops on the width of the bracket only (a CDF jump at an atom is found as the jump's location).
     /// </summary>
-    internal static double InvertCdf(Func<double, double> cdf, Func<double, double> survival, double p, double lo, double hi)
+    internal static double InvertCdf(Func<double, double> cdf, Func<double, double> survival, double p, double lo, double hi,
+        double relativeTolerance = 1e-12)
     {
         double G(double q) => p <= 0.5 ? cdf(q) - p : (1 - p) - survival(q);
         double width = Math.Max(hi - lo, 1e-9 * Math.Max(1.0, Math.Abs(hi)));
@@ -284,10 +288,10 @@ public static class ProjectionAnalysis
         if (fb == 0) return hi;
         double a = lo, b = hi;
         // Relative to the root, but never below 1e−12 of the starting bracket (a median of exactly 0).
-        double floor = 1e-12 * (hi - lo);
+        double floor = relativeTolerance * (hi - lo);
         for (int it = 0; it < 200; it++)
         {
-            double tolerance = Math.Max(1e-12 * Math.Max(Math.Abs(a), Math.Abs(b)), floor);
+            double tolerance = Math.Max(relativeTolerance * Math.Max(Math.Abs(a), Math.Abs(b)), floor);
             if (Math.Abs(b - a) <= tolerance) break;
             double c = (a * fb - b * fa) / (fb - fa);
             // Fall back to bisection when the secant leaves the bracket or every third step, which bounds the worst case.
