@@ -9,6 +9,7 @@ public sealed record AnalysisOutputs
     public string? JsonPath { get; init; }
     public string? ReportFolder { get; init; }
     public bool Force { get; init; }
+    public Commands.FigureRequest? Figures { get; init; }
 }
 
 /// <summary>Runs one analysis and writes its console summary, results file and report folder.</summary>
