@@ -16,6 +16,9 @@ public sealed record AnalysisOptions
     public required ColumnSelector X { get; init; }
     public required ColumnSelector Y { get; init; }
     public CsvOptions Csv { get; init; } = new();
+
+    /// <summary>How to name the input file in the results (default: the path as given).</summary>
+    public string? SourceLabel { get; init; }
     public int Seed { get; init; } = 20261202;
 
     /// <summary>Marginal options of X and Y (VariableName is filled in from the column names).</summary>
@@ -91,7 +94,7 @@ public static class AnalysisPipeline
             CreatedUtc = DateTime.UtcNow.ToString("yyyy-MM-ddTHH:mm:ssZ", CultureInfo.InvariantCulture),
             Input = new InputSection
             {
-                File = sample.Rows.Source,
+                File = options.SourceLabel ?? sample.Rows.Source,
                 XColumn = sample.XName,
                 YColumn = sample.YName,
                 RowsRead = sample.Rows.RowsRead,
