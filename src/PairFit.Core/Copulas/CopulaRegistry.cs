@@ -11,7 +11,11 @@ public static class CopulaRegistry
     public static readonly IReadOnlyList<ICopulaFamily> Families =
     [
         IndependenceCopula.Family,
+        GaussianCopula.Family,
         ClaytonCopula.Family,
+        GumbelCopula.Family,
+        FrankCopula.Family,
+        JoeCopula.Family,
     ];
 
     public static ICopulaFamily Find(string name)
