@@ -12,6 +12,7 @@ public static class CopulaRegistry
     [
         IndependenceCopula.Family,
         GaussianCopula.Family,
+        StudentTCopula.Family,
         ClaytonCopula.Family,
         GumbelCopula.Family,
         FrankCopula.Family,
