@@ -33,6 +33,18 @@ public static class FigureSet
     {
         model ??= results.Model?.ToJointModel();
         var list = new List<Figure> { ScatterFigure.Build(sample) };
+        list.Add(CopulaFigure.Build(sample, model?.Copula));
+        if (model is not null)
+        {
+            list.Add(MarginalFitFigure.Build("marginal-x", sample.XName, sample.X, [new MarginalCandidate(Labels.Of(model.X), model.X)]));
+            list.Add(MarginalFitFigure.Build("marginal-y", sample.YName, sample.Y, [new MarginalCandidate(Labels.Of(model.Y), model.Y)]));
+        }
+        var copulaGroups = new List<CandidateGroup>();
+        if (CandidateFigure.Build(copulaGroups) is { } candidates) list.Add(candidates);
+        var copulas = new List<CopulaCandidate>();
+        if (model is not null) copulas.Add(new CopulaCandidate(Labels.Of(model.Copula), model.Copula));
+        list.Add(TailFigure.Build(sample, copulas, options.Seed));
+        if (model is not null) list.Add(SimulationFigure.Build(sample, model, options.Seed));
         return list;
     }
 
