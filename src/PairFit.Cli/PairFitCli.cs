@@ -23,6 +23,8 @@ public static class PairFitCli
         {
             DescribeCommand.Build(),
             AnalyzeCommand.Build(),
+            DemoCommand.Build(),
+            GenerateDemoDataCommand.Build(),
         };
         return root;
     }

@@ -1,8 +1,6 @@
 using System.CommandLine;
-using System.Globalization;
 using PairFit.Core;
 using PairFit.Core.Data;
-using PairFit.Core.Results;
 
 namespace PairFit.Cli.Commands;
 
@@ -15,9 +13,11 @@ public static class AnalyzeCommand
         var x = new Option<string>("--x") { Description = "Column for X: header name or 1-based index.", Required = true };
         var y = new Option<string>("--y") { Description = "Column for Y: header name or 1-based index.", Required = true };
         var json = new Option<string?>("--json") { Description = "Write the results file (JSON) here." };
+        var outDir = new Option<string?>("--out") { Description = "Write the report folder (report, figures, tables, results file) here." };
+        var force = new Option<bool>("--force") { Description = "Replace an existing --out folder or --json file." };
         var seed = new Option<int>("--seed") { Description = "Seed for every random draw (bootstrap, Monte Carlo).", DefaultValueFactory = _ => 20261202 };
         var csvOptions = new CsvReadingOptions();
-        var command = new Command("analyze", "Fit and test the joint law of two columns and report it.") { csv, x, y, json, seed };
+        var command = new Command("analyze", "Fit and test the joint law of two columns and report it.") { csv, x, y, json, outDir, force, seed };
         csvOptions.AddTo(command);
         command.SetAction(parse => PairFitCli.Guard(parse, (output, error) =>
         {
@@ -29,13 +29,8 @@ public static class AnalyzeCommand
                 Csv = csvOptions.Read(parse),
                 Seed = parse.GetValue(seed),
             };
-            var results = AnalysisPipeline.Run(options, new Progress<string>(s => error.WriteLine($"pairfit: {s}...")));
-            ConsoleSummary.Write(results, output);
-            if (parse.GetValue(json) is { } jsonPath)
-            {
-                ResultsFile.Write(results, jsonPath);
-                error.WriteLine($"pairfit: results written to {jsonPath}");
-            }
+            var outputs = new AnalysisOutputs { JsonPath = parse.GetValue(json), ReportFolder = parse.GetValue(outDir), Force = parse.GetValue(force) };
+            AnalysisRun.Execute(options, outputs, output, error);
             return PairFitCli.ExitOk;
         }));
         return command;
