@@ -44,9 +44,16 @@ public static class FigureSet
         var copulas = new List<CopulaCandidate>();
         if (model is not null) copulas.Add(new CopulaCandidate(Labels.Of(model.Copula), model.Copula));
         list.Add(TailFigure.Build(sample, copulas, options.Seed));
-        if (model is not null) list.Add(SimulationFigure.Build(sample, model, options.Seed));
+        if (model is not null)
+        {
+            list.Add(ReturnPeriodFigure.Build(sample, model, DefaultReturnPeriods, 1.0, options.Seed));
+            list.Add(SimulationFigure.Build(sample, model, options.Seed));
+        }
         return list;
     }
+
+    /// <summary>Return periods drawn when the results name none.</summary>
+    public static readonly double[] DefaultReturnPeriods = [10, 50, 100];
 
     private static void Validate(FigureOptions o)
     {
