@@ -1,4 +1,3 @@
-using MathNet.Numerics.Distributions;
 using OxyPlot;
 using OxyPlot.Axes;
 using PairFit.Core.Marginals;
@@ -51,8 +50,7 @@ public static class MarginalFitFigure
         }
         PlotStyle.LegendBelow(a);
 
-        // (b) QQ plot with the order-statistic band: U_(i) ~ Beta(i, n + 1 − i) (David and Nagaraja 2003, eq. 2.2.2),
-        // mapped through the fitted quantile function. The band is evaluated at ≤ 200 ranks to keep it cheap.
+        // (b) QQ plot with the order-statistic band, evaluated at ≤ 200 ranks to keep it cheap.
         var dist = selected.Distribution;
         var theo = new double[n];
         for (int i = 0; i < n; i++) theo[i] = dist.Quantile((i + 1.0) / (n + 1));
@@ -65,10 +63,10 @@ public static class MarginalFitFigure
         if ((n - 1) % step != 0) AddBand(n - 1);
         void AddBand(int i)
         {
-            double ai = i + 1, bi = n - i;
+            var (bl, bh) = FigureMath.OrderStatisticBand(dist, n, i + 1, 0.95);
             bandX.Add(theo[i]);
-            bandLo.Add(dist.Quantile(Beta.InvCDF(ai, bi, 0.025)));
-            bandHi.Add(dist.Quantile(Beta.InvCDF(ai, bi, 0.975)));
+            bandLo.Add(bl);
+            bandHi.Add(bh);
         }
 
         var b = PlotStyle.NewPanel("(b) quantile–quantile plot");

@@ -26,7 +26,7 @@ public static class ReturnPeriodFigure
     /// <summary>Copula draws used to estimate the Kendall distribution function K_C (Monte Carlo).</summary>
     public const int KendallDraws = 20000;
 
-    private enum Kind { And, Or, Kendall }
+    internal enum Kind { And, Or, Kendall }
 
     /// <param name="periods">Return periods to draw, in the unit of <paramref name="yearsPerEvent"/>.</param>
     /// <param name="yearsPerEvent">μ, mean time between observed pairs (1 for annual maxima).</param>
@@ -90,7 +90,7 @@ public static class ReturnPeriodFigure
     /// Points (x, y) with exceedance probability p: for each x on a grid, the v solving the
     /// monotone equation in v by bisection (60 halvings reach double precision on (0, 1)).
     /// </summary>
-    private static (double[] X, double[] Y) Isoline(JointModel model, Kind kind, double p, double[] kendallLevels, double xLo, double xHi)
+    internal static (double[] X, double[] Y) Isoline(JointModel model, Kind kind, double p, double[] kendallLevels, double xLo, double xHi)
     {
         double tStar = kind == Kind.Kendall ? KendallQuantile(kendallLevels, 1 - p) : 0;
         // a uniform grid in x, plus points crowding the vertical asymptote u = a of the curve
@@ -158,7 +158,7 @@ public static class ReturnPeriodFigure
     /// only for some families; the Monte Carlo standard error of a quantile at level q is about
     /// √(q(1 − q)/N) in probability, 7e−4 at q = 0.99 with N = 20000.
     /// </summary>
-    private static double[] KendallDistribution(ICopula copula, int seed)
+    internal static double[] KendallDistribution(ICopula copula, int seed)
     {
         var u = new double[KendallDraws];
         var v = new double[KendallDraws];

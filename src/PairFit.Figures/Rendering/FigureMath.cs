@@ -1,7 +1,9 @@
 using MathNet.Numerics;
 using MathNet.Numerics.Integration;
 using PairFit.Core.Common;
+using MathNet.Numerics.Distributions;
 using PairFit.Core.Copulas;
+using PairFit.Core.Marginals;
 
 namespace PairFit.Figures.Rendering;
 
@@ -174,6 +176,17 @@ public static class FigureMath
             w = next;
         }
         return w;
+    }
+
+    /// <summary>
+    /// Pointwise band for the i-th smallest of n draws from <paramref name="dist"/>: F(X_(i)) = U_(i)
+    /// follows Beta(i, n + 1 − i) (David and Nagaraja 2003, section 2.2), so its central
+    /// <paramref name="level"/> interval mapped through the quantile function F⁻¹ bounds X_(i).
+    /// </summary>
+    public static (double Lower, double Upper) OrderStatisticBand(IMarginalDistribution dist, int n, int i, double level)
+    {
+        double tail = 0.5 * (1 - level);
+        return (dist.Quantile(Beta.InvCDF(i, n + 1 - i, tail)), dist.Quantile(Beta.InvCDF(i, n + 1 - i, 1 - tail)));
     }
 
     /// <summary>n points evenly spread on (lo, hi) inclusive.</summary>
