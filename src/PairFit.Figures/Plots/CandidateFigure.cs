@@ -28,10 +28,11 @@ public static class CandidateFigure
         if (usable.Count == 0) return null;
 
         var fig = new Figure(Id, "Candidate comparison",
-            "AIC difference of each fitted candidate to the best one in its group (best at the top; bars are longer for worse fits). " +
+            "AIC difference of each fitted candidate to the best one in its group (best at the top; bars are longer for worse fits; the value follows each name, and bars beyond the axis end are cut). " +
             "Dotted guides at ΔAIC = 2 and 10: candidates below 2 are about as well supported as the best, above 10 they have essentially no support (Burnham and Anderson 2002). Failed fits are listed without a bar.",
-            aspect: 0.45 + 0.03 * MaxCount(usable));
-        double w = 1.0 / usable.Count;
+            aspect: Math.Min(1.4, 0.06 * TotalRows(usable)));
+        // panels stacked, each as tall as its number of candidates (plus room for heading and axis)
+        double totalRows = TotalRows(usable), top = 0;
         for (int gi = 0; gi < usable.Count; gi++)
         {
             var g = usable[gi];
@@ -43,24 +44,31 @@ public static class CandidateFigure
             ordered.Reverse();
             var labels = new List<string>(ordered.Count);
             var bars = new BarSeries { FillColor = Palette.Blue, StrokeColor = OxyColors.Black, StrokeThickness = 0.5, BarWidth = 0.6 };
+            // long bars are cut at the axis end (their value is in the label): one very poor
+            // candidate must not squash the differences that matter, those below ~10
+            const double axisCap = 40;
             double maxDelta = 12;
             foreach (var c in ordered)
             {
                 double? delta = c.Aic is { } a ? a - best : null;
-                labels.Add(delta is null ? c.Label + " (failed)" : c.Label);
+                labels.Add(delta is { } dl ? $"{c.Label}   {dl:0.0}" : c.Label + "   failed");
                 bars.Items.Add(new BarItem(delta ?? 0));
                 if (delta is { } d) maxDelta = Math.Max(maxDelta, d);
                 fig.Data.Add(g.Heading, c.Label, delta ?? double.NaN, c.Aic ?? double.NaN);
             }
             var m = PlotStyle.NewPanel(usable.Count > 1 ? $"({(char)('a' + gi)}) {g.Heading}" : g.Heading);
             m.Axes.Add(PlotStyle.Category(AxisPosition.Left, "", labels));
-            var x = PlotStyle.Linear(AxisPosition.Bottom, "ΔAIC", 0, maxDelta * 1.05);
+            var x = PlotStyle.Linear(AxisPosition.Bottom, "ΔAIC = AIC − smallest AIC", 0, Math.Min(maxDelta, axisCap) * 1.05);
             m.Axes.Add(x);
             m.Series.Add(bars);
             m.Series.Add(Guide(2, labels.Count));
             m.Series.Add(Guide(10, labels.Count));
             m.IsLegendVisible = false;
-            fig.Add(m, gi * w, 0, w, 1);
+            m.TitleHorizontalAlignment = TitleHorizontalAlignment.CenteredWithinView;
+            ((CategoryAxis)m.Axes[0]).TickStyle = TickStyle.None;
+            double h = Rows(g) / totalRows;
+            fig.Add(m, 0, top, 1, h);
+            top += h;
         }
         return fig;
     }
@@ -68,10 +76,12 @@ public static class CandidateFigure
     private static LineSeries Guide(double at, int categories)
         => Series.Reference([at, at], [-0.5, categories - 0.5], null);
 
-    private static int MaxCount(List<CandidateGroup> groups)
+    private static double Rows(CandidateGroup g) => g.Candidates.Count + 3.0;
+
+    private static double TotalRows(List<CandidateGroup> groups)
     {
-        int m = 0;
-        foreach (var g in groups) m = Math.Max(m, g.Candidates.Count);
-        return m;
+        double r = 0;
+        foreach (var g in groups) r += Rows(g);
+        return r;
     }
 }
