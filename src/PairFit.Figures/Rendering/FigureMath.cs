@@ -130,30 +130,38 @@ public static class FigureMath
 
     /// <summary>
     /// W_{i:n}, the expected i-th order statistic of H under independence (Genest and Boies 2003,
-    /// eq. 1): the mean of K0⁻¹(B) with B ~ Beta(i, n − i + 1), where K0(w) = w − w ln w is the
-    /// law of H for independent pairs. Each mean is a 48-point Gauss–Legendre rule over the
-    /// Beta's mass (mean ± 12 sd, clipped to [0, 1]), which holds ≥ 1 − 1e−9 of it.
+    /// eq. 1): W = ∫ w k0(w) b(K0(w)) dw with K0(w) = w − w ln w the law of H for independent pairs,
+    /// k0 = −ln w its density and b the Beta(i, n − i + 1) density. With w = e^(−s) the integrand
+    /// s e^(−2s) b(K0(e^(−s))) is smooth (in w it has a log singularity at 0, in p = K0(w) a
+    /// square-root end point at 1), so a 128-point Gauss–Legendre rule over the Beta's mass
+    /// (mean ± (12 sd + 30/(n + 1)), the lower end kept above 1e−8·mean) is accurate; dividing by the same rule's
+    /// total mass cancels most of the remaining error.
     /// </summary>
     public static double[] KendallPlotW(int n)
     {
         var w = new double[n];
-        const int order = 48;
+        const int order = 128;
         var rule = new GaussLegendreRule(-1, 1, order);
         for (int i = 1; i <= n; i++)
         {
             double a = i, b = n - i + 1;
             double mean = a / (a + b), sd = Math.Sqrt(a * b / ((a + b) * (a + b) * (a + b + 1)));
-            double lo = Math.Max(0, mean - 12 * sd), hi = Math.Min(1, mean + 12 * sd);
+            // ±12 sd holds the mass of the central Betas; the extreme ones (i near 1 or n) have an
+            // exponential tail, (1 − p)^n < 1e−12 needs p > 28/n, hence the extra 30/(n + 1)
+            double reach = 12 * sd + 30.0 / (a + b);
+            double pLo = Math.Max(mean - reach, 1e-8 * mean), pHi = Math.Min(1, mean + reach);
+            double sLo = -Math.Log(K0Inverse(pHi)), sHi = -Math.Log(K0Inverse(pLo));
             double logNorm = -SpecialFunctions.BetaLn(a, b);
-            double half = 0.5 * (hi - lo), mid = 0.5 * (hi + lo), sum = 0, mass = 0;
+            double half = 0.5 * (sHi - sLo), mid = 0.5 * (sHi + sLo), sum = 0, mass = 0;
             for (int k = 0; k < order; k++)
             {
-                double p = mid + half * rule.Abscissas[k];
-                double dens = Math.Exp(logNorm + (a - 1) * Math.Log(p) + (b - 1) * MathExtras.Log1P(-p));
-                sum += rule.Weights[k] * dens * K0Inverse(p);
+                double sk = mid + half * rule.Abscissas[k];
+                double x = Math.Exp(-sk), p = x + x * sk; // K0(e^(−s)) = e^(−s)(1 + s)
+                // b(p) k0(w) |dw/ds| = b(p) s e^(−s)
+                double dens = Math.Exp(logNorm + (a - 1) * Math.Log(p) + (b - 1) * MathExtras.Log1P(-p) - sk) * sk;
+                sum += rule.Weights[k] * dens * x;
                 mass += rule.Weights[k] * dens;
             }
-            // dividing by the computed mass removes the quadrature error of the normalisation
             w[i - 1] = sum / mass;
         }
         return w;
