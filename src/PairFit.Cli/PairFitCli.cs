@@ -25,6 +25,7 @@ public static class PairFitCli
             AnalyzeCommand.Build(),
             DemoCommand.Build(),
             GenerateDemoDataCommand.Build(),
+            SimulateCommand.Build(),
         };
         return root;
     }
