@@ -6,7 +6,7 @@ using PairFit.Figures.Rendering;
 namespace PairFit.Figures.Plots;
 
 /// <summary>A fitted marginal candidate to draw, with the label shown in the legend.</summary>
-public sealed record MarginalCandidate(string Label, IMarginalDistribution Distribution);
+public sealed record MarginalCurve(string Label, IMarginalDistribution Distribution);
 
 /// <summary>
 /// Figure 3 (one per variable): (a) histogram with the fitted densities of the best candidates;
@@ -17,7 +17,7 @@ public static class MarginalFitFigure
     public const int MaxCandidates = 4;
 
     /// <param name="candidates">Best first; the first one is the selected fit used in the QQ plot.</param>
-    public static Figure Build(string id, string variable, ReadOnlySpan<double> values, IReadOnlyList<MarginalCandidate> candidates)
+    public static Figure Build(string id, string variable, ReadOnlySpan<double> values, IReadOnlyList<MarginalCurve> candidates)
     {
         if (candidates.Count == 0) throw new ArgumentException("at least one fitted candidate is needed.", nameof(candidates));
         int n = values.Length;

@@ -169,5 +169,5 @@ public static class ReturnPeriodFigure
         return w;
     }
 
-    private static double KendallQuantile(double[] sorted, double q) => FigureMath.Quantile(sorted, q);
+    private static double KendallQuantile(double[] sorted, double q) => PairFit.Core.Projection.SampleStatistics.InterpolatedQuantile(sorted, q);
 }

@@ -9,7 +9,7 @@ using PairFit.Figures.Rendering;
 namespace PairFit.Figures.Plots;
 
 /// <summary>A fitted copula to draw, with its legend label.</summary>
-public sealed record CopulaCandidate(string Label, ICopula Copula);
+public sealed record CopulaCurve(string Label, ICopula Copula);
 
 /// <summary>
 /// Figure 5: (a) the empirical tail-dependence function λ(t) against the fitted copulas' curves;
@@ -25,7 +25,7 @@ public static class TailFigure
     /// <summary>Simulated samples averaged for a fitted copula's expected Kendall-plot curve.</summary>
     public const int KendallPlotReplicates = 20;
 
-    public static Figure Build(PairedSample sample, IReadOnlyList<CopulaCandidate> copulas, int seed)
+    public static Figure Build(PairedSample sample, IReadOnlyList<CopulaCurve> copulas, int seed)
     {
         double[] u = Ranks.PseudoObservations(sample.X), v = Ranks.PseudoObservations(sample.Y);
         var fig = new Figure(Id, "Tail dependence and Kendall plot",

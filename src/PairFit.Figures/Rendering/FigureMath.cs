@@ -4,6 +4,7 @@ using PairFit.Core.Common;
 using MathNet.Numerics.Distributions;
 using PairFit.Core.Copulas;
 using PairFit.Core.Marginals;
+using PairFit.Core.Projection;
 
 namespace PairFit.Figures.Rendering;
 
@@ -26,7 +27,7 @@ public static class FigureMath
         Array.Sort(s);
         double lo = s[0], hi = s[^1];
         if (!(hi > lo)) { lo -= 0.5; hi += 0.5; }
-        double iqr = Quantile(s, 0.75) - Quantile(s, 0.25);
+        double iqr = SampleStatistics.InterpolatedQuantile(s, 0.75) - SampleStatistics.InterpolatedQuantile(s, 0.25);
         int bins = iqr > 0 ? (int)Math.Ceiling((hi - lo) / (2 * iqr * Math.Pow(n, -1.0 / 3))) : 10;
         bins = Math.Clamp(bins, 8, 40);
         double width = (hi - lo) / bins;
@@ -40,15 +41,6 @@ public static class FigureMath
         }
         for (int k = 0; k < bins; k++) density[k] /= n * width;
         return (edges, density);
-    }
-
-    /// <summary>Linear-interpolation quantile of sorted data (Hyndman and Fan 1996, definition 7).</summary>
-    public static double Quantile(ReadOnlySpan<double> sorted, double p)
-    {
-        double h = (sorted.Length - 1) * p;
-        int i = (int)Math.Floor(h);
-        if (i >= sorted.Length - 1) return sorted[^1];
-        return sorted[i] + (h - i) * (sorted[i + 1] - sorted[i]);
     }
 
     /// <summary>

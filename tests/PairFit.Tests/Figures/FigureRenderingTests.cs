@@ -28,8 +28,7 @@ public sealed class FigureRenderingTests : IDisposable
     public static IEnumerable<object[]> AllFigures()
     {
         var sample = FigureTestData.Sample();
-        var model = FigureTestData.Fit(sample);
-        var results = FigureTestData.Results(sample, model);
+        var (results, model) = FigureTestData.Analyse(sample);
         foreach (var f in FigureSet.BuildAll(sample, results, model, SmallOptions))
             yield return [f.Id, f];
         // the candidate comparison from log-likelihoods of real fits on the same data: AIC = 2k − 2 log L (Akaike 1974)
@@ -106,21 +105,20 @@ public sealed class FigureRenderingTests : IDisposable
     [Fact]
     public void RenderAll_writes_every_figure_and_honours_width_and_dpi()
     {
-        var sample = FigureTestData.Sample(80);
-        var model = FigureTestData.Fit(sample);
-        var results = FigureTestData.Results(sample, model);
+        var sample = FigureTestData.Sample();
+        var (results, model) = FigureTestData.Analyse(sample);
         var files = FigureSet.RenderAll(sample, results, model, _dir, new FigureOptions { Formats = ["png"], WidthMm = 85, Dpi = 150 });
-        string[] expected = ["scatter", "copula", "marginal-x", "marginal-y", "tails", "return-periods", "simulated"];
+        string[] expected = ["scatter", "copula", "marginal-x", "marginal-y", "candidates", "tails", "projection-1", "return-periods", "simulated"];
         Assert.Equal(expected, files.Where(f => f.Format == "png").Select(f => f.Id));
         using var bmp = SKBitmap.Decode(Path.Combine(_dir, "figures", "scatter.png"));
-        Assert.Equal((int)Math.Round(85 / 25.4 * 150), bmp.Width); // one column, 85 mm at 150 dpi = 502 px
+        Assert.Equal(502, bmp.Width); // one column: 85 mm at 150 dpi = 85/25.4·150 = 501.97 → 502 px
     }
 
     [Fact]
     public void Without_a_model_only_the_data_figures_are_drawn()
     {
-        var sample = FigureTestData.Sample(60);
-        var results = FigureTestData.Results(sample, null);
+        var sample = FigureTestData.Sample();
+        var (results, _) = FigureTestData.Analyse(sample, withModel: false);
         var ids = FigureSet.BuildAll(sample, results, null, SmallOptions).Select(f => f.Id).ToArray();
         Assert.Equal(["scatter", "copula", "tails"], ids);
     }
@@ -131,9 +129,9 @@ public sealed class FigureRenderingTests : IDisposable
     [InlineData("png", 160, 10)]
     public void Bad_figure_options_are_input_errors(string format, double width, int dpi)
     {
-        var sample = FigureTestData.Sample(30);
+        var sample = FigureTestData.Sample();
         var ex = Assert.Throws<PairFitInputException>(() =>
-            FigureSet.RenderAll(sample, FigureTestData.Results(sample, null), null, _dir, new FigureOptions { Formats = [format], WidthMm = width, Dpi = dpi }));
+            FigureSet.RenderAll(sample, FigureTestData.Analyse(sample, withModel: false).Results, null, _dir, new FigureOptions { Formats = [format], WidthMm = width, Dpi = dpi }));
         Assert.DoesNotContain('\n', ex.Message);
     }
 
@@ -141,8 +139,8 @@ public sealed class FigureRenderingTests : IDisposable
     public void Same_seed_gives_byte_identical_png()
     {
         // PNG output is deterministic on this image (stack notes section 3); the simulated panel must be too.
-        var sample = FigureTestData.Sample(60);
-        var model = FigureTestData.Fit(sample);
+        var sample = FigureTestData.Sample();
+        var (_, model) = FigureTestData.Analyse(sample);
         var f1 = SimulationFigure.Build(sample, model, 5);
         var f2 = SimulationFigure.Build(sample, model, 5);
         using var a = new MemoryStream();

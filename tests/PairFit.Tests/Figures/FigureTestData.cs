@@ -1,4 +1,6 @@
 using PairFit.Core.Copulas;
+using PairFit.Core.Copulas.Fitting;
+using PairFit.Core.Projection;
 using PairFit.Core.Data;
 using PairFit.Core.Dependence;
 using PairFit.Core.Marginals;
@@ -18,32 +20,42 @@ internal static class FigureTestData
     public static readonly JointModel TrueModel = new(
         new LogNormalDistribution(3, 0.5), new NormalDistribution(50, 10), CopulaRegistry.Create("clayton", 180, [2.0]));
 
+    /// <summary>The same instance for the same arguments, so that analyses of it can be cached.</summary>
     public static PairedSample Sample(int n = 150, string xName = "synthetic_rain_mm", string yName = "synthetic_flow_m3s", string? file = "synthetic.csv")
     {
-        var (x, y) = TrueModel.Sample(n, seed: 11);
-        return new PairedSample(x, y, xName, yName, new RowAccounting(file, n + 2, n, new Dictionary<string, int> { ["missing y"] = 2 }));
+        lock (Samples)
+        {
+            if (Samples.TryGetValue((n, xName, yName, file), out var s)) return s;
+            var (x, y) = TrueModel.Sample(n, seed: 11);
+            return Samples[(n, xName, yName, file)] = new PairedSample(x, y, xName, yName,
+                new RowAccounting(file, n + 2, n, new Dictionary<string, int> { ["missing y"] = 2 }));
+        }
     }
 
-    public static JointModel Fit(PairedSample s)
+    private static readonly Dictionary<(int, string, string, string?), PairedSample> Samples = [];
+
+    /// <summary>
+    /// The real fitting stages on the sample: dependence measures, marginal candidates by maximum
+    /// likelihood ranked by AIC, copula candidates by maximum pseudo-likelihood (a small
+    /// goodness-of-fit bootstrap to keep the tests quick) and one projection.
+    /// </summary>
+    public static (AnalysisResults Results, JointModel Model) Analyse(PairedSample s, bool withModel = true)
     {
-        int n = s.Count;
-        double ml = 0, mx = 0;
-        for (int i = 0; i < n; i++) { ml += Math.Log(s.X[i]); mx += s.Y[i]; }
-        ml /= n; mx /= n;
-        double vl = 0, vx = 0;
-        for (int i = 0; i < n; i++) { vl += Math.Pow(Math.Log(s.X[i]) - ml, 2); vx += Math.Pow(s.Y[i] - mx, 2); }
-        var fx = new LogNormalDistribution(ml, Math.Sqrt(vl / n));
-        var fy = new NormalDistribution(mx, Math.Sqrt(vx / n));
-        double tau = KendallTau.TauB(s.X, s.Y);
-        var c = CopulaRegistry.Create("clayton", 180, [2 * tau / (1 - tau)]);
-        return new JointModel(fx, fy, c);
+        // the fits are deterministic, so each (sample, withModel) is analysed once per test run
+        lock (Cache)
+        {
+            if (!Cache.TryGetValue(s, out var hit))
+                Cache[s] = hit = AnalyseOnce(s);
+            return withModel ? hit : (hit.Item1 with { Marginals = null, Copula = null, Model = null, Projections = null }, hit.Item2);
+        }
     }
 
-    public static AnalysisResults Results(PairedSample s, JointModel? model) => new()
+    private static readonly Dictionary<PairedSample, (AnalysisResults, JointModel)> Cache = [];
+
+    private static (AnalysisResults Results, JointModel Model) AnalyseOnce(PairedSample s)
     {
-        Tool = "pairfit test",
-        CreatedUtc = "2026-12-02T00:00:00Z",
-        Input = new InputSection
+        var dependence = DependenceAnalysis.Compute(s);
+        var input = new InputSection
         {
             File = s.Rows.Source,
             XColumn = s.XName,
@@ -51,16 +63,24 @@ internal static class FigureTestData
             RowsRead = s.Rows.RowsRead,
             RowsUsed = s.Rows.RowsUsed,
             Dropped = s.Rows.DroppedByReason,
-        },
-        Dependence = new DependenceSection
+        };
+        var mx = MarginalAnalysis.Fit(s.X, new MarginalOptions { Candidates = ["lognormal", "gamma", "weibull", "normal"], VariableName = s.XName });
+        var my = MarginalAnalysis.Fit(s.Y, new MarginalOptions { Candidates = ["normal", "gamma", "lognormal"], VariableName = s.YName });
+        var cop = CopulaAnalysis.Fit(s, mx.Selected, my.Selected, new CopulaOptions { GofReplicates = 10, Seed = 11 });
+        var model = new JointModel(mx.Selected, my.Selected, cop.Selected);
+        var projection = ProjectionAnalysis.Project(model, "x + y", s.XName, s.YName, s, new ProjectionOptions { Seed = 11, GridPoints = 128 });
+        var results = new AnalysisResults
         {
-            N = s.Count,
-            Pearson = new CorrelationEstimate { Estimate = 0.61, PValue = 1e-9, Ci95 = [0.5, 0.7], Note = "Fisher z" },
-            Spearman = new CorrelationEstimate { Estimate = 0.58 },
-            Kendall = new CorrelationEstimate { Estimate = KendallTau.TauB(s.X, s.Y) },
-            Tail = new TailDependenceEstimate { Lower = null, Upper = 0.4, Estimator = "test", Threshold = 0.9 },
-        },
-        Model = model is null ? null : ModelSection.From(model, s.XName, s.YName),
-        Settings = new Dictionary<string, string> { ["seed"] = "11" },
-    };
+            Tool = "pairfit test",
+            CreatedUtc = "2026-12-02T00:00:00Z",
+            Input = input,
+            Dependence = dependence,
+            Marginals = new MarginalsSection { X = mx.Section, Y = my.Section },
+            Copula = cop.Section,
+            Model = ModelSection.From(model, s.XName, s.YName),
+            Projections = [projection],
+            Settings = new Dictionary<string, string> { ["seed"] = "11" },
+        };
+        return (results, model);
+    }
 }
