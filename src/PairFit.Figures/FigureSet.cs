@@ -29,12 +29,17 @@ public static class FigureSet
         ArgumentNullException.ThrowIfNull(results);
         ArgumentNullException.ThrowIfNull(options);
         Validate(options);
-        var files = new List<FigureFile>();
-        foreach (var figure in BuildAll(sample, results, model, options))
+        var figures = BuildAll(sample, results, model, options);
+        // figures are independent (own models, own render contexts): export them in parallel,
+        // collected by index so the list keeps the figures' order
+        var written = new IReadOnlyList<FigureFile>[figures.Count];
+        Parallel.For(0, figures.Count, i =>
         {
-            progress?.Report($"figure {figure.Id}");
-            files.AddRange(FigureExporter.Export(figure, options, outDir));
-        }
+            progress?.Report($"figure {figures[i].Id}");
+            written[i] = FigureExporter.Export(figures[i], options, outDir);
+        });
+        var files = new List<FigureFile>();
+        foreach (var w in written) files.AddRange(w);
         return files;
     }
 

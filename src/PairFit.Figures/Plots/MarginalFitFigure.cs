@@ -25,7 +25,7 @@ public static class MarginalFitFigure
         Array.Sort(sorted);
         var selected = candidates[0];
         var fig = new Figure(id, $"Marginal fit of {variable}",
-            $"(a) Histogram of {variable} (density scale) with the fitted densities of the {Math.Min(candidates.Count, MaxCandidates)} best candidate(s). " +
+            $"(a) Histogram of {variable} (density scale) with the fitted densities of the best candidate(s): {string.Join("; ", candidates.Take(MaxCandidates).Select(c => c.Label))}. " +
             $"(b) Quantile–quantile plot of the {n} sorted values against the quantiles of the selected fit ({selected.Label}) at plotting positions i/(n+1); " +
             "the band holds each order statistic with 95 % probability under the fit (pointwise, from the Beta law of uniform order statistics). Points leaving the band point to a misfit, most often in a tail.",
             aspect: 0.5);
@@ -45,7 +45,8 @@ public static class MarginalFitFigure
             var d = candidates[c].Distribution;
             var ys = new double[xs.Length];
             for (int i = 0; i < xs.Length; i++) ys[i] = d.Density(xs[i]);
-            a.Series.Add(Series.Line(xs, ys, candidates[c].Label, c));
+            // legend: family only (parameters are in the caption), so the legend never outgrows the panel
+            a.Series.Add(Series.Line(xs, ys, d.Family, c));
             fig.Data.AddSeries("a", candidates[c].Label + " density", xs, ys);
         }
         PlotStyle.LegendBelow(a);

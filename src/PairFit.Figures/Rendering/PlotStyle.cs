@@ -25,7 +25,7 @@ public static class PlotStyle
             Title = heading,
             TitleFont = Font,
             TitleFontSize = FontSize,
-            TitleFontWeight = FontWeights.Bold,
+            TitleFontWeight = FontWeights.Normal, // one font face only: PDFs embed whole font files (no subsetting in this Skia build)
             TitleHorizontalAlignment = TitleHorizontalAlignment.CenteredWithinPlotArea,
             TitlePadding = 4,
             PlotAreaBorderThickness = new OxyThickness(0),

@@ -80,7 +80,7 @@ public sealed class ReportWriterTests(HostileReportFixture fixture) : IClassFixt
     {
         var (results, _) = Hostile();
         string md = File.ReadAllText(Path.Combine(_dir, ReportWriter.MarkdownFile));
-        Assert.Contains("| rows read | 62 |", md);
+        Assert.Contains("| rows read | 152 |", md);
         Assert.Contains("| dropped: missing y | 2 |", md);
         Assert.Contains("Kendall tau-b", md);
         Assert.Contains("| seed | 11 |", md);
@@ -119,11 +119,21 @@ public sealed class HostileReportFixture : IDisposable
 
     public HostileReportFixture()
     {
-        var sample = FigureTestData.Sample(60, xName: ScriptColumn, yName: "runoff_mm | *bold*", file: QuotedFile);
-        (Results, var model) = FigureTestData.Analyse(sample);
+        // the shared synthetic analysis, with the columns and the file renamed to hostile text
+        var plain = FigureTestData.Sample();
+        var (results, model) = FigureTestData.Analyse(plain);
+        var sample = new PairedSample(plain.X, plain.Y, ScriptColumn, YColumn,
+            new RowAccounting(QuotedFile, plain.Rows.RowsRead, plain.Rows.RowsUsed, plain.Rows.DroppedByReason));
+        Results = results with
+        {
+            Input = results.Input with { XColumn = ScriptColumn, YColumn = YColumn, File = QuotedFile },
+            Model = ModelSection.From(model, ScriptColumn, YColumn),
+        };
         Figures = FigureSet.RenderAll(sample, Results, model, Dir, new FigureOptions { Formats = ["png", "svg"], WidthMm = 90, Dpi = 72 });
         ReportWriter.Write(Results, Figures, Dir);
     }
+
+    public const string YColumn = "runoff_mm | *bold*";
 
     public string Dir { get; } = Path.Combine(Path.GetTempPath(), "pairfit-reporttests-" + Guid.NewGuid().ToString("N"));
     public AnalysisResults Results { get; }
