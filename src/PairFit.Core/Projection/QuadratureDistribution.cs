@@ -23,12 +23,6 @@ public sealed class QuadratureDistribution
         1 - 1e-5, 1 - 1e-9, 1 - 1e-13, 1 - 1.0 / (1L << 53),
     ];
 
-    // Fewer starting panels for the coarse tolerance: adaptivity refines only where needed.
-    private static readonly double[] CoarseBreaks =
-    [
-        1e-300, 1e-12, 1e-5, 0.02, 0.5, 0.98, 1 - 1e-5, 1 - 1e-12, 1 - 1.0 / (1L << 53),
-    ];
-
     // Absolute tolerance far below any probability of interest, so that small tail probabilities
     // are computed to the relative tolerance; QUADPACK's round-off floor stops needless refinement.
     private const double AbsoluteTolerance = 1e-15;
@@ -40,8 +34,7 @@ public sealed class QuadratureDistribution
 
     private readonly JointModel _model;
     private readonly InversionChain _chain;
-    private readonly PanelSet _fine;
-    private readonly PanelSet _coarse;
+    private readonly PanelSet _panels;
     private readonly int _maxIntervals;
     private readonly ICopula _flippedY;      // copula of (U, 1 − V)
 
@@ -52,8 +45,9 @@ public sealed class QuadratureDistribution
         _maxIntervals = Math.Max(4, chain.MaxIntervals);
         _flippedY = FlipV(model.Copula);
         var jumps = JumpPoints(model, chain);
-        _fine = new PanelSet(model, chain, GradedBreaks, jumps);
-        _coarse = new PanelSet(model, chain, CoarseBreaks, jumps);
+        // One panel layout for both tolerances: fewer starting panels for the coarse tolerance were
+        // tried and cost more refinements than they saved (ratio on a Clayton model: +20 % integrand calls).
+        _panels = new PanelSet(model, chain, GradedBreaks, jumps);
     }
 
     /// <summary>
@@ -119,14 +113,14 @@ public sealed class QuadratureDistribution
         if (_chain.HasFlatPieces)
             return Math.Max(0.0, (Cdf(q + step) - Cdf(q - step)) / (2 * step));
         var target = new DualInterval(Dual.Constant(double.NegativeInfinity), new Dual(q, 1.0));
-        var set = coarse ? _coarse : _fine;
+        var set = _panels;
         return Math.Max(0.0, Integrate(target, set, u => DensityIntegrand(u, target),
             i => ConditionalDensity(set.NodeU[i], set.Siblings(i), target), coarse));
     }
 
     private double Probability(DualInterval target, bool coarse = false)
     {
-        var set = coarse ? _coarse : _fine;
+        var set = _panels;
         return Math.Clamp(Integrate(target, set, u => ProbabilityIntegrand(u, target),
             i => ConditionalProbability(set.NodeU[i], set.Siblings(i), target), coarse), 0.0, 1.0);
     }
