@@ -23,6 +23,9 @@ public static class PairFitCli
         {
             DescribeCommand.Build(),
             AnalyzeCommand.Build(),
+            DemoCommand.Build(),
+            GenerateDemoDataCommand.Build(),
+            SimulateCommand.Build(),
         };
         return root;
     }
