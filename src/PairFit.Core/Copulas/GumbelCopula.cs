@@ -87,7 +87,7 @@ public sealed class GumbelCopula : ICopula
         double lo = logX, hi = logX + 1;
         while (g.Evaluate(hi, out _) < 0) hi = lo + 2 * (hi - lo);
         // Start from the root of e^s = target, usually close (and inside the bracket after clamping).
-        double s = MonotoneRoot.Solve(ref g, lo, hi, Math.Log(Math.Max(g.Target, 1e-300)));
+        double s = SafeguardedNewton.Solve(ref g, lo, hi, Math.Log(Math.Max(g.Target, 1e-300)));
         double logY = s + MathExtras.Log1MExp(Theta * (s - logX)) * _inverseTheta;
         return Math.Exp(-Math.Exp(logY));
     }

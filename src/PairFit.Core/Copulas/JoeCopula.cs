@@ -90,7 +90,7 @@ public sealed class JoeCopula : ICopula
         // Bracket: at ℓ = hi < 0 close to 0, log h is very negative; walk lo down until log h > log w.
         double hi = -1e-300, lo = Math.Min(Theta * logUBar, 0.0) - 1;
         while (g.Evaluate(lo, out _) < 0) lo *= 2;
-        double logB = MonotoneRoot.Solve(ref g, lo, hi, 0.5 * (lo + hi));
+        double logB = SafeguardedNewton.Solve(ref g, lo, hi, 0.5 * (lo + hi));
         return Math.Clamp(-MathExtras.ExpM1(logB * _inverseTheta), 0.0, 1.0);
     }
 
