@@ -165,7 +165,7 @@ public readonly struct StudentTFunctions
         double lo = s0 - 1, hi = s0 + 1;
         while (g.Evaluate(lo, out _) < 0) lo -= 2 * (hi - lo);
         while (g.Evaluate(hi, out _) > 0) hi += 2 * (hi - lo);
-        return -Math.Exp(SafeguardedNewton.Solve(ref g, lo, hi, s0, 1e-15));
+        return -Math.Exp(MonotoneRoot.Solve(ref g, lo, hi, s0, 1e-15));
     }
 
     private readonly struct LogTailEquation(StudentTFunctions t, double logP) : IMonotoneFunction

@@ -101,7 +101,7 @@ public sealed class GumbelCopula : ICopula
         {
             double lo = logX, hi = logX + 1;
             while (g.Evaluate(hi, out _) < 0) hi = lo + 2 * (hi - lo);
-            s = SafeguardedNewton.Solve(ref g, lo, hi, 0.5 * (lo + hi));
+            s = MonotoneRoot.Solve(ref g, lo, hi, 0.5 * (lo + hi));
         }
         double logY = s + MathExtras.Log1MExp(Theta * (s - logX)) * _inverseTheta;
         return Math.Exp(-Math.Exp(logY));

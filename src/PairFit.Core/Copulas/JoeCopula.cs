@@ -110,7 +110,7 @@ public sealed class JoeCopula : ICopula
         // At ℓ = hi < 0 close to 0, log h is very negative; walk lo down until log h > log w.
         double hi = -1e-300, lo = Math.Min(Theta * logUBar, 0.0) - 1;
         while (g.Evaluate(lo, out _) < 0) lo *= 2;
-        return SafeguardedNewton.Solve(ref g, lo, hi, 0.5 * (lo + hi));
+        return MonotoneRoot.Solve(ref g, lo, hi, 0.5 * (lo + hi));
     }
 
     private readonly struct LogBEquation(JoeCopula copula, double logA, double logUBar, double logW) : IMonotoneFunction

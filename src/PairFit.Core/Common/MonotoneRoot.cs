@@ -14,7 +14,7 @@ public interface IMonotoneFunction
 /// section 9.4): a Newton step is taken when it stays inside the current bracket, a bisection step
 /// otherwise, so it always converges. Generic over a struct so that callers pay no allocation.
 /// </summary>
-public static class SafeguardedNewton
+public static class MonotoneRoot
 {
     public static double Solve<TFunction>(ref TFunction f, double lo, double hi, double x0, double tolerance = 1e-14, int maxIterations = 200)
         where TFunction : struct, IMonotoneFunction
