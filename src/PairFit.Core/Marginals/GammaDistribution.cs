@@ -56,6 +56,7 @@ public sealed class GammaDistribution : IMarginalDistribution
     internal static double LowerRegularized(double k, double y)
     {
         if (!(y > 0)) return 0.0;
+        if (k > LargeShape) return LargeShapeTail(k, y, upper: false);
         if (y >= 1 || y >= k) return SpecialFunctions.GammaLowerRegularized(k, y);
         double sum = 1, term = 1;
         for (int n = 1; n < 1000; n++)
@@ -71,8 +72,60 @@ public sealed class GammaDistribution : IMarginalDistribution
     internal static double UpperRegularized(double k, double y)
     {
         if (!(y > 0)) return 1.0;
+        if (k > LargeShape) return LargeShapeTail(k, y, upper: true);
         if (y >= 1 || y >= k) return SpecialFunctions.GammaUpperRegularized(k, y);
         return 1 - LowerRegularized(k, y);
+    }
+
+    /// <summary>Above this shape the incomplete gamma functions are computed here (see <see cref="LargeShapeTail"/>).</summary>
+    private const double LargeShape = 1000;
+
+    /// <summary>
+    /// P(k, y) or Q(k, y) for large k. MathNet 5.0.0 carries relative errors of several 1e-9 there
+    /// (seen at k = 4e6), so the smaller tail is summed directly: below the mean by the power series
+    /// (Abramowitz and Stegun 1964, 6.5.29), above it by the continued fraction for Q evaluated with
+    /// the modified Lentz method (Press et al. 2007, §6.2). The prefactor y^k e^(−y)/Γ(k) is taken in the
+    /// cancellation-free form k(ln(1+t) − t) + ½ ln(k/2π) − S(k), y = k(1 + t), S Stirling's series.
+    /// Cost grows like √k terms (about 1e4 at k = 4e6).
+    /// </summary>
+    private static double LargeShapeTail(double k, double y, bool upper)
+    {
+        double t = (y - k) / k, k3 = k * k * k;
+        double stirling = 1 / (12 * k) - 1 / (360 * k3) + 1 / (1260 * k3 * k * k);
+        double logPrefactor = k * (MathExtras.Log1P(t) - t) + 0.5 * Math.Log(k / (2 * Math.PI)) - stirling;   // ln(y^k e^−y / Γ(k))
+        double smaller;
+        bool lowerIsSmaller = y < k;
+        if (lowerIsSmaller)
+        {
+            double sum = 1, term = 1;
+            for (int n = 1; n < 10_000_000; n++)
+            {
+                term *= y / (k + n);
+                sum += term;
+                if (term < 1e-17 * sum) break;
+            }
+            smaller = Math.Exp(logPrefactor - Math.Log(k)) * sum;   // / Γ(k + 1) = / (k Γ(k))
+        }
+        else
+        {
+            const double tiny = 1e-300;
+            double b = y + 1 - k, c = 1 / tiny, d = 1 / b, h = d;
+            for (int i = 1; i < 10_000_000; i++)
+            {
+                double an = -i * (i - k);
+                b += 2;
+                d = an * d + b;
+                if (Math.Abs(d) < tiny) d = tiny;
+                c = b + an / c;
+                if (Math.Abs(c) < tiny) c = tiny;
+                d = 1 / d;
+                double delta = d * c;
+                h *= delta;
+                if (Math.Abs(delta - 1) < 1e-16) break;
+            }
+            smaller = Math.Exp(logPrefactor) * h;
+        }
+        return lowerIsSmaller == upper ? 1 - smaller : smaller;
     }
 
     /// <summary>
