@@ -184,6 +184,7 @@ public sealed class GammaDistribution : IMarginalDistribution
     {
         public string Name => FamilyName;
         public IReadOnlyList<string> ParameterNames => Names;
+        public bool LikelihoodFromSufficientStatistics => true;
         public string? SupportProblem(MarginalSample s) => SupportChecks.Positive(s, FamilyName);
 
         public MarginalEstimate FitMaximumLikelihood(MarginalSample s)

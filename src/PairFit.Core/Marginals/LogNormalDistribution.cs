@@ -51,6 +51,7 @@ public sealed class LogNormalDistribution : IMarginalDistribution
     {
         public string Name => FamilyName;
         public IReadOnlyList<string> ParameterNames => Names;
+        public bool LikelihoodFromSufficientStatistics => true;
         public string? SupportProblem(MarginalSample s) => SupportChecks.Positive(s, FamilyName);
 
         public MarginalEstimate FitMaximumLikelihood(MarginalSample s) => new([s.MeanLog, s.StandardDeviationLog], true, "mle");

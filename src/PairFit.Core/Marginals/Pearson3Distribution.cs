@@ -145,9 +145,7 @@ public sealed class Pearson3Distribution : IMarginalDistribution
         // y: standardised, and mirrored for negative skew, so the bound is always below the data.
         var y = new double[n];
         for (int i = 0; i < n; i++) y[i] = mirrored ? (c - sorted[n - 1 - i]) / d : (sorted[i] - c) / d;
-        double yMin = y[0], yMean = 0;
-        for (int i = 0; i < n; i++) yMean += y[i];
-        yMean /= n;
+        double yMin = y[0];
         double[] sub = MarginalSample.Stratified(y, LikelihoodMaximizer.SubsampleSize);
 
         // Threshold a = yMin − e^r. Profile (value, derivative in r) on a given set of values.
@@ -187,7 +185,7 @@ public sealed class Pearson3Distribution : IMarginalDistribution
         if (best < 0) return new([c, d * Math.Sqrt(Math.PI), 0], false, "mle", "profile likelihood undefined");
         double step = (rHigh - rLow) / (gridSize - 1);
         double lo = rLow + step * Math.Max(best - 1, 0), hi = rLow + step * Math.Min(best + 1, gridSize - 1);
-        double? root = MonotoneRoot.Find(r => Profile(y, r).Slope, lo, hi, rLow - 20, rHigh + 6, 1e-10);
+        double? root = MonotoneRoot.FindOnData((v, r) => Profile(v, r).Slope, y, sub, lo, hi, rLow - 20, rHigh + 6, 0.1, 1e-10);
         string? note = null;
         bool converged = true;
         double rStar;

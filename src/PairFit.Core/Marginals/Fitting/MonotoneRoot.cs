@@ -25,4 +25,21 @@ internal static class MonotoneRoot
         if (!(double.IsFinite(fa) && double.IsFinite(fb)) || Math.Sign(fa) == Math.Sign(fb)) return null;
         return Brent.TryFindRoot(f, a, b, accuracy, 200, out double root) ? root : null;
     }
+
+    /// <summary>
+    /// Two-stage root for equations that are sums over the data: solved first on a stratified
+    /// subsample (cheap, within a few subsample standard errors of the answer), then on the full data
+    /// from a bracket of ±<paramref name="halfWidth"/> around that root, which Brent closes in a few
+    /// full passes. <paramref name="equation"/> takes the values to sum over and the unknown.
+    /// </summary>
+    public static double? FindOnData(Func<double[], double, double> equation, double[] full, double[] subsample,
+        double a, double b, double lower, double upper, double halfWidth, double accuracy)
+    {
+        if (!ReferenceEquals(full, subsample) && full.Length > subsample.Length)
+        {
+            double? rough = Find(t => equation(subsample, t), a, b, lower, upper, accuracy * 1e3);
+            if (rough is { } r) { a = Math.Max(lower, r - halfWidth); b = Math.Min(upper, r + halfWidth); }
+        }
+        return Find(t => equation(full, t), a, b, lower, upper, accuracy);
+    }
 }
