@@ -23,6 +23,11 @@ public static class PairFitCli
         {
             DescribeCommand.Build(),
             AnalyzeCommand.Build(),
+            DemoCommand.Build(),
+            GenerateDemoDataCommand.Build(),
+            SimulateCommand.Build(),
+            ProjectCommand.Build(),
+            JointCommand.Build(),
         };
         return root;
     }

@@ -1,3 +1,4 @@
+using PairFit.Core.Common;
 using MathNet.Numerics;
 using PairFit.Core.Marginals.Fitting;
 
@@ -185,7 +186,7 @@ public sealed class Pearson3Distribution : IMarginalDistribution
         if (best < 0) return new([c, d * Math.Sqrt(Math.PI), 0], false, "mle", "profile likelihood undefined");
         double step = (rHigh - rLow) / (gridSize - 1);
         double lo = rLow + step * Math.Max(best - 1, 0), hi = rLow + step * Math.Min(best + 1, gridSize - 1);
-        double? root = MonotoneRoot.FindOnData((v, r) => Profile(v, r).Slope, y, sub, lo, hi, rLow - 20, rHigh + 6, 0.1, 1e-10);
+        double? root = DataRoot.Find((v, r) => Profile(v, r).Slope, y, sub, lo, hi, rLow - 20, rHigh + 6, 0.1, 1e-10);
         string? note = null;
         bool converged = true;
         double rStar;

@@ -1,5 +1,6 @@
 using PairFit.Core.Common;
 using PairFit.Core.Copulas;
+using PairFit.Core.Copulas.Sampling;
 using PairFit.Core.Marginals;
 
 namespace PairFit.Core.Model;
@@ -35,14 +36,8 @@ public sealed record JointModel(IMarginalDistribution X, IMarginalDistribution Y
         double[] ua = new double[n], va = new double[n];
         Parallel.For(0, blocks, b =>
         {
-            var rng = RandomStreams.For(seed, b);
-            int end = Math.Min(n, (b + 1) * block);
-            for (int i = b * block; i < end; i++)
-            {
-                double ui = RandomStreams.OpenUniform(rng), wi = RandomStreams.OpenUniform(rng);
-                ua[i] = ui;
-                va[i] = copula.InverseConditionalCdf(ui, wi);
-            }
+            int start = b * block, count = Math.Min(n, start + block) - start;
+            CopulaSampler.Fill(copula, RandomStreams.For(seed, b), ua.AsSpan(start, count), va.AsSpan(start, count));
         });
         ua.AsSpan().CopyTo(u);
         va.AsSpan().CopyTo(v);
