@@ -44,6 +44,7 @@ public static class DependenceAnalysis
     private static string? UndefinedReason(PairedSample s)
     {
         if (s.Count < 2) return $"undefined: {s.Count} pair(s); at least two are needed";
+        if (!AllFinite(s.X) || !AllFinite(s.Y)) return "undefined: the sample holds infinite or NaN values (the CSV reader never produces them)";
         bool xConstant = IsConstant(s.X), yConstant = IsConstant(s.Y);
         if (xConstant || yConstant)
         {
@@ -51,6 +52,12 @@ public static class DependenceAnalysis
             return $"undefined: {which} constant";
         }
         return null;
+    }
+
+    private static bool AllFinite(double[] v)
+    {
+        foreach (double a in v) if (!double.IsFinite(a)) return false;
+        return true;
     }
 
     private static bool IsConstant(double[] v)

@@ -4,13 +4,10 @@ using PairFit.Core.Data;
 
 namespace PairFit.Tests.Data;
 
-public class PairedCsvReaderTests : IDisposable
+public class PairedCsvReaderTests : CsvFileTests
 {
-    private readonly TempCsv _files = new();
-    public void Dispose() => _files.Dispose();
-
     private PairedSample Read(string text, string x = "a", string y = "b", CsvOptions? options = null, bool bom = false)
-        => PairedCsvReader.Read(_files.Write("data.csv", text, bom), new ColumnSelector(x), new ColumnSelector(y), options ?? new CsvOptions());
+        => PairedCsvReader.Read(Files.Write("data.csv", text, bom), new ColumnSelector(x), new ColumnSelector(y), options ?? new CsvOptions());
 
     private string ReadError(string text, string x = "a", string y = "b", CsvOptions? options = null)
         => Assert.Throws<PairFitInputException>(() => Read(text, x, y, options)).Message;
@@ -132,7 +129,7 @@ public class PairedCsvReaderTests : IDisposable
     public void ExplainsEveryKindOfBadFile()
     {
         Assert.Contains("does not exist", Assert.Throws<PairFitInputException>(() =>
-            PairedCsvReader.Read(_files.PathOf("nope.csv"), new("a"), new("b"), new())).Message);
+            PairedCsvReader.Read(Files.PathOf("nope.csv"), new("a"), new("b"), new())).Message);
         Assert.Contains("is empty", ReadError(""));
         Assert.Contains("only blank lines", ReadError("\n\n  \n"));
         Assert.Contains("no data rows", ReadError("a,b\n"));
