@@ -135,6 +135,7 @@ public class PairedCsvReaderTests : CsvFileTests
         Assert.Contains("no data rows", ReadError("a,b\n"));
         Assert.Contains("the columns are: a, b, c", ReadError("a,b,c\n1,2,3\n", "a", "rain"));
         Assert.Contains("has 3 column(s)", ReadError("a,b,c\n1,2,3\n", "a", "4"));
+        Assert.Contains("Only one column was found with the comma delimiter", ReadError("a b\n1 2\n3 4\n"));
         Assert.Contains("holds no numbers", ReadError("a,b\n1,x\n2,y\n3,z\n"));
         Assert.Contains("missing in all 2 data rows", ReadError("a,b\n1,\n2,NA\n"));
         Assert.Contains("only one usable row", ReadError("a,b\n1,2\n3,\n"));
