@@ -30,11 +30,15 @@ public class CliBadInputTests : CsvFileTests
     private static void AssertOneLineBadInput((int Code, string Out, string Err) r, string expected)
     {
         Assert.Equal(PairFitCli.ExitBadInput, r.Code);
-        string err = r.Err.TrimEnd();
-        Assert.DoesNotContain('\n', err);           // exactly one line
-        Assert.Contains(expected, err);
-        Assert.StartsWith("pairfit: error: ", err);
+        var lines = r.Err.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries);
+        // Exactly one error line that names the problem; anything else on stderr is a progress
+        // line of the form "pairfit: <stage>..." written before the problem was found.
+        var errors = lines.Where(l => l.StartsWith("pairfit: error: ", StringComparison.Ordinal)).ToArray();
+        Assert.Single(errors);
+        Assert.Contains(expected, errors[0]);
+        Assert.All(lines.Except(errors), l => Assert.Matches(@"^pairfit: [^\n]*\.\.\.$", l));
         Assert.DoesNotContain("   at ", r.Err + r.Out);
+        Assert.DoesNotContain("Exception", r.Err);
     }
 
     [Theory]
@@ -43,7 +47,6 @@ public class CliBadInputTests : CsvFileTests
     {
         string path = content is null ? Files.PathOf("absent.csv") : Files.Write(name.Replace(' ', '-') + ".csv", content);
         var r = Run("analyze", path, "--x", "a", "--y", yColumn);
-        // analyze prints one progress line ("pairfit: dependence measures...") only after reading succeeded.
         AssertOneLineBadInput(r, expected);
     }
 
