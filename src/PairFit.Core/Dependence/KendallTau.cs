@@ -218,6 +218,51 @@ public static class KendallTau
             return dx > 0 && dy > 0 ? (counts.S - score[i]) / Math.Sqrt(dx * dy) : double.NaN;
         }
     }
+    /// <summary>Largest n for which the exact null distribution is used whenever there are no ties.</summary>
+    public const int ExactPValueMaxN = 33;
+
+    /// <summary>
+    /// Two-sided p-value of tau against independence. Exact when neither variable has ties and
+    /// n ≤ <see cref="ExactPValueMaxN"/> (or the sample is within one exchange of perfect
+    /// (dis)agreement, where the tail holds only a handful of permutations): the permutation
+    /// distribution of the number of discordant pairs (Kendall 1970, ch. 5), by the recursion
+    /// P_j(k) = (1/j) Σ_{i=0}^{j−1} P_{j−1}(k − i). Otherwise the normal approximation with the
+    /// tie-corrected variance <see cref="KendallCounts.NullVarianceOfS"/>. (The same rule as
+    /// SciPy's kendalltau with method 'auto'.) NaN when undefined (n &lt; 3 or a constant variable).
+    /// </summary>
+    public static double PValue(KendallCounts counts, out bool exact)
+    {
+        exact = false;
+        int n = counts.N;
+        if (n < 3 || counts.XTies.Pairs == counts.TotalPairs || counts.YTies.Pairs == counts.TotalPairs) return double.NaN;
+        long fewer = (counts.TotalPairs - Math.Abs(counts.S)) / 2; // min(n_c, n_d) when there are no ties
+        if (counts.XTies.Pairs == 0 && counts.YTies.Pairs == 0 && (n <= ExactPValueMaxN || fewer <= 1))
+        {
+            exact = true;
+            return Math.Min(1.0, 2 * ExactLowerTail(n, fewer));
+        }
+        double variance = counts.NullVarianceOfS;
+        return variance > 0 ? CorrelationInference.NormalPValue(counts.S / Math.Sqrt(variance)) : double.NaN;
+    }
+
+    /// <summary>P(D ≤ c) for the number D of inversions of a uniformly random permutation of n items.</summary>
+    private static double ExactLowerTail(int n, long c)
+    {
+        // p[k] = P_j(k) for k ≤ c; built up from j = 1 (p = [1]); the j-th step is a moving sum of width j.
+        var p = new double[c + 1];
+        var cumulative = new double[c + 1];
+        p[0] = 1;
+        for (int j = 2; j <= n; j++)
+        {
+            double sum = 0;
+            for (long k = 0; k <= c; k++) { sum += p[k]; cumulative[k] = sum; }
+            for (long k = 0; k <= c; k++)
+                p[k] = (cumulative[k] - (k - j >= 0 ? cumulative[k - j] : 0)) / j;
+        }
+        double tail = 0;
+        foreach (double v in p) tail += v;
+        return tail;
+    }
 }
 
 /// <summary>Sums over the tie groups of one variable, as Kendall's (1970) tie corrections need them.</summary>

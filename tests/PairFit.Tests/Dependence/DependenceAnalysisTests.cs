@@ -92,6 +92,7 @@ public class DependenceAnalysisTests
 internal static class CorrelationInferenceProbe
 {
     public static double[] Fisher(double r, double se) => CorrelationInference.FisherInterval(r, se);
+    public static double NormalPValue(double z) => CorrelationInference.NormalPValue(z);
 }
 
 public class PearsonScalingTests
