@@ -1,4 +1,6 @@
 using System.CommandLine;
+using PairFit.Cli.Printing;
+using PairFit.Core.Data;
 
 namespace PairFit.Cli.Commands;
 
@@ -11,8 +13,28 @@ public static class DescribeCommand
         var csvOptions = new CsvReadingOptions();
         var command = new Command("describe", "Summarise every column of a CSV file: type, counts, missing values, min/median/max, skewness.") { csv };
         csvOptions.AddTo(command);
-        command.SetAction(parse => PairFitCli.Guard(parse, (output, error) =>
-            throw new Core.Common.PairFitAnalysisException("describe is being written (issue 2).")));
+        command.SetAction(parse => PairFitCli.Guard(parse, (output, _) =>
+        {
+            var description = CsvDescription.Describe(parse.GetValue(csv)!, csvOptions.Read(parse));
+            Write(description, output);
+            return PairFitCli.ExitOk;
+        }));
         return command;
+    }
+
+    public static void Write(CsvDescription d, TextWriter w)
+    {
+        w.WriteLine($"File: {d.Source}");
+        w.WriteLine($"  {d.Rows} data row(s), {d.Columns.Count} column(s); delimiter: {CsvOptions.DelimiterName(d.Delimiter)}; decimal mark: {(d.DecimalComma ? "comma" : "point")}");
+        var table = new TextTable(">#", "column", "type", ">rows", ">missing", ">numeric", ">min", ">median", ">max", ">skewness");
+        foreach (var c in d.Columns)
+            table.Add(c.Index.ToString(), c.Name, c.Type, c.Count.ToString(), c.Missing.ToString(), c.Numeric.ToString(),
+                TextTable.Number(c.Min), TextTable.Number(c.Median), TextTable.Number(c.Max), TextTable.Number(c.Skewness, 3));
+        table.Write(w);
+        w.WriteLine("  missing: empty, NA, NaN, null and --missing tokens; skewness: adjusted Fisher-Pearson G1 of the numbers.");
+        foreach (var c in d.Columns.Where(c => c.NonFinite > 0))
+            w.WriteLine($"  Note: column '{c.Name}' has {c.NonFinite} infinite value(s); analyze refuses them (mark them with --missing or correct them).");
+        foreach (var c in d.Columns.Where(c => c.Type == "mixed"))
+            w.WriteLine($"  Note: column '{c.Name}' mixes numbers and {c.Text} text value(s); analyze drops the text rows as non-numeric.");
     }
 }

@@ -11,6 +11,10 @@ public sealed record CsvOptions
 
     /// <summary>Extra missing-value tokens given by the user, e.g. "-9999" (in addition to empty, NA, NaN, null).</summary>
     public IReadOnlyList<string> MissingTokens { get; init; } = [];
+
+    /// <summary>The word for a delimiter in messages: "comma", "semicolon", "tab".</summary>
+    public static string DelimiterName(char delimiter)
+        => delimiter switch { ',' => "comma", ';' => "semicolon", '\t' => "tab", _ => $"'{delimiter}'" };
 }
 
 /// <summary>A column chosen by header name or by 1-based index ("3" or "#3").</summary>

@@ -1,14 +1,17 @@
 using PairFit.Core.Common;
+using PairFit.Core.Marginals.Fitting;
 
 namespace PairFit.Core.Marginals;
 
 /// <summary>
 /// Exponential law with rate lambda on [0, ∞): f(x) = lambda exp(−lambda x).
+/// MLE in closed form: rate = 1 / mean.
 /// </summary>
 public sealed class ExponentialDistribution : IMarginalDistribution
 {
     public const string FamilyName = "exponential";
     private static readonly string[] Names = ["rate"];
+    public static readonly IMarginalFamily Definition = new ExponentialFamily();
 
     public ExponentialDistribution(double rate)
     {
@@ -35,4 +38,21 @@ public sealed class ExponentialDistribution : IMarginalDistribution
     public double Survival(double x) => x <= 0 ? 1.0 : Math.Exp(-Rate * x);
 
     public double Quantile(double p) => p >= 1 ? double.PositiveInfinity : -MathExtras.Log1P(-p) / Rate;
+
+    private sealed class ExponentialFamily : IMarginalFamily
+    {
+        public string Name => FamilyName;
+        public IReadOnlyList<string> ParameterNames => Names;
+
+        public string? SupportProblem(MarginalSample s) => SupportChecks.NonNegative(s, FamilyName)
+            ?? (s.Max > 0 ? null : "exponential needs some value > 0");
+
+        public MarginalEstimate FitMaximumLikelihood(MarginalSample s) => new([1.0 / s.Mean], double.IsFinite(1.0 / s.Mean), "mle");
+
+        // n ln λ − λ Σx, written with λ·mean so that 1e300 data do not overflow Σx.
+        public double LogLikelihood(MarginalSample s, ReadOnlySpan<double> p)
+            => p[0] > 0 ? s.N * (Math.Log(p[0]) - p[0] * s.Mean) : double.NegativeInfinity;
+
+        public IMarginalDistribution Create(IReadOnlyList<double> p) => new ExponentialDistribution(p[0]);
+    }
 }

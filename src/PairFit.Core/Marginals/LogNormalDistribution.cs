@@ -1,14 +1,17 @@
 using MathNet.Numerics;
+using PairFit.Core.Marginals.Fitting;
 
 namespace PairFit.Core.Marginals;
 
 /// <summary>
 /// Two-parameter lognormal law: log X ~ N(mu, sigma²), support (0, ∞).
+/// MLE in closed form: mu, sigma = mean and population SD of ln x.
 /// </summary>
 public sealed class LogNormalDistribution : IMarginalDistribution
 {
     public const string FamilyName = "lognormal";
     private static readonly string[] Names = ["mu", "sigma"];
+    public static readonly IMarginalFamily Definition = new LogNormalFamily();
 
     public LogNormalDistribution(double mu, double sigma)
     {
@@ -42,4 +45,19 @@ public sealed class LogNormalDistribution : IMarginalDistribution
     public double Survival(double x) => x <= 0 ? 1.0 : 0.5 * SpecialFunctions.Erfc((Math.Log(x) - Mu) / (Sigma * Constants.Sqrt2));
 
     public double Quantile(double p) => Math.Exp(Mu - Sigma * Constants.Sqrt2 * SpecialFunctions.ErfcInv(2 * p));
+
+    private sealed class LogNormalFamily : IMarginalFamily
+    {
+        public string Name => FamilyName;
+        public IReadOnlyList<string> ParameterNames => Names;
+        public string? SupportProblem(MarginalSample s) => SupportChecks.Positive(s, FamilyName);
+
+        public MarginalEstimate FitMaximumLikelihood(MarginalSample s) => new([s.MeanLog, s.StandardDeviationLog], true, "mle");
+
+        // Normal log-likelihood of ln x plus the Jacobian −Σ ln x.
+        public double LogLikelihood(MarginalSample s, ReadOnlySpan<double> p)
+            => NormalDistribution.LogLikelihood(s.N, s.MeanLog, s.StandardDeviationLog, p[0], p[1]) - s.N * s.MeanLog;
+
+        public IMarginalDistribution Create(IReadOnlyList<double> p) => new LogNormalDistribution(p[0], p[1]);
+    }
 }

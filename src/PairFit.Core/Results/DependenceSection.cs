@@ -29,5 +29,10 @@ public sealed record TailDependenceEstimate
     public double? Lower { get; init; }
     public double? Upper { get; init; }
     public string? Estimator { get; init; }
+    /// <summary>The upper threshold t (λ_U at t, λ_L at 1 − t).</summary>
     public double? Threshold { get; init; }
+    /// <summary>Number of extreme order statistics behind each estimate (t = 1 − k/n).</summary>
+    public int? K { get; init; }
+    /// <summary>Why the estimates are missing, or a caution about them.</summary>
+    public string? Note { get; init; }
 }

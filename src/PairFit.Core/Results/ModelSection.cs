@@ -30,13 +30,17 @@ public sealed record MarginalSpec
     public required string Family { get; init; }
     public required IReadOnlyDictionary<string, double> Parameters { get; init; }
 
+    /// <summary>Sorted data of an "empirical" marginal, which has no parameters; null for parametric families.</summary>
+    public IReadOnlyList<double>? Values { get; init; }
+
     public static MarginalSpec From(IMarginalDistribution d) => new()
     {
         Family = d.Family,
         Parameters = Named(d.ParameterNames, d.Parameters),
+        Values = d is EmpiricalDistribution e ? e.Values : null,
     };
 
-    public IMarginalDistribution Build() => MarginalRegistry.Create(Family, Parameters.Values.ToArray());
+    public IMarginalDistribution Build() => MarginalRegistry.Create(Family, Values ?? Parameters.Values.ToArray());
 
     internal static Dictionary<string, double> Named(IReadOnlyList<string> names, IReadOnlyList<double> values)
     {

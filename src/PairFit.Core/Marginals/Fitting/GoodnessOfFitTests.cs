@@ -1,0 +1,133 @@
+using PairFit.Core.Results;
+
+namespace PairFit.Core.Marginals.Fitting;
+
+/// <summary>
+/// Kolmogorov–Smirnov, Anderson–Darling and Cramér–von Mises statistics of a fitted marginal on
+/// the sorted data, with p-values where a valid one exists.
+/// </summary>
+public static class GoodnessOfFitTests
+{
+    /// <summary>
+    /// The three statistics on sorted data. <paramref name="normalWithEstimatedParameters"/> is set for
+    /// the normal and lognormal families, whose AD and CvM p-values then account for the estimated
+    /// mean and variance (Stephens' modified statistics); otherwise every p-value treats the
+    /// parameters as known and is therefore too large (the test is conservative).
+    /// </summary>
+    public static GoodnessOfFit Compute(IMarginalDistribution d, ReadOnlySpan<double> sorted, bool normalWithEstimatedParameters)
+    {
+        int n = sorted.Length;
+        double ks = 0, ad = 0, cvm = 1.0 / (12.0 * n);
+        var logF = new double[n];
+        var logS = new double[n];
+        var f = new double[n];
+        for (int i = 0; i < n; i++)
+        {
+            double x = sorted[i];
+            double fi = d.Cdf(x);
+            // Take the upper tail from the survival function so that ln(1 − F) keeps its precision.
+            double si = fi > 0.5 ? d.Survival(x) : 1.0 - fi;
+            if (fi > 0.5) fi = 1.0 - si;
+            f[i] = fi;
+            logF[i] = Math.Log(Math.Max(fi, double.Epsilon));
+            logS[i] = Math.Log(Math.Max(si, double.Epsilon));
+        }
+        for (int i = 0; i < n; i++)
+        {
+            double fi = f[i];
+            // KS: D = max_i max(i/n − F_i, F_i − (i−1)/n) (1-based i).
+            ks = Math.Max(ks, Math.Max((i + 1.0) / n - fi, fi - (double)i / n));
+            // AD: A² = −n − (1/n) Σ (2i−1)[ln F_i + ln(1 − F_(n+1−i))]  (Anderson and Darling 1954).
+            ad += (2.0 * i + 1.0) * (logF[i] + logS[n - 1 - i]);
+            // CvM: W² = 1/(12n) + Σ (F_i − (2i−1)/(2n))².
+            double c = fi - (2.0 * i + 1.0) / (2.0 * n);
+            cvm += c * c;
+        }
+        ad = -n - ad / n;
+
+        double? ksP = KolmogorovPValue(ks, n);
+        double? adP, cvmP;
+        string note;
+        if (normalWithEstimatedParameters)
+        {
+            adP = AndersonDarlingNormalPValue(ad, n);
+            cvmP = CramerVonMisesNormalPValue(cvm, n);
+            note = "AD and CvM p-values allow for the estimated mean and variance (Stephens' modified statistics, D'Agostino and Stephens 1986); the KS p-value treats the parameters as known and is too large.";
+        }
+        else
+        {
+            adP = AndersonDarlingKnownPValue(ad);
+            cvmP = null;
+            note = "KS and AD p-values treat the fitted parameters as known, so they are too large (conservative); no CvM p-value for estimated parameters of this family.";
+        }
+        return new GoodnessOfFit
+        {
+            KsStatistic = Finite(ks), KsPValue = ksP,
+            AdStatistic = Finite(ad), AdPValue = double.IsFinite(ad) ? adP : null,
+            CvmStatistic = Finite(cvm), CvmPValue = cvmP,
+            PValueNote = note,
+        };
+    }
+
+    private static double? Finite(double v) => double.IsFinite(v) ? v : null;
+
+    /// <summary>
+    /// Asymptotic Kolmogorov distribution Q(λ) = 2 Σ_{k≥1} (−1)^(k−1) exp(−2k²λ²) with Stephens' (1970)
+    /// finite-sample scaling λ = (√n + 0.12 + 0.11/√n) D; parameters taken as known.
+    /// </summary>
+    public static double KolmogorovPValue(double d, int n)
+    {
+        double sn = Math.Sqrt(n);
+        double lambda = (sn + 0.12 + 0.11 / sn) * d;
+        if (lambda < 0.2) return 1.0;
+        double sum = 0;
+        for (int k = 1; k <= 100; k++)
+        {
+            double term = Math.Exp(-2.0 * k * k * lambda * lambda);
+            sum += (k % 2 == 1 ? term : -term);
+            if (term < 1e-17) break;
+        }
+        return Math.Clamp(2 * sum, 0.0, 1.0);
+    }
+
+    /// <summary>
+    /// P(A² &gt; a) for the limiting distribution with known parameters, by the approximation of
+    /// Marsaglia and Marsaglia (2004), "Evaluating the Anderson–Darling distribution", eq. for ADinf.
+    /// </summary>
+    public static double AndersonDarlingKnownPValue(double a)
+    {
+        if (!(a > 0)) return 1.0;
+        double cdf = a < 2
+            ? Math.Exp(-1.2337141 / a) / Math.Sqrt(a) * (2.00012 + (0.247105 - (0.0649821 - (0.0347962 - (0.011672 - 0.00168691 * a) * a) * a) * a) * a)
+            : Math.Exp(-Math.Exp(1.0776 - (2.30695 - (0.43424 - (0.082433 - (0.008056 - 0.0003146 * a) * a) * a) * a) * a));
+        return Math.Clamp(1 - cdf, 0.0, 1.0);
+    }
+
+    /// <summary>
+    /// Normal case, mean and variance estimated: A* = A²(1 + 0.75/n + 2.25/n²) and the piecewise
+    /// exponential p-value approximation of D'Agostino and Stephens (1986), Table 4.9.
+    /// </summary>
+    public static double AndersonDarlingNormalPValue(double a, int n)
+    {
+        double z = a * (1 + 0.75 / n + 2.25 / ((double)n * n));
+        double p = z >= 0.6 ? Math.Exp(1.2937 - 5.709 * z + 0.0186 * z * z)
+            : z >= 0.34 ? Math.Exp(0.9177 - 4.279 * z - 1.38 * z * z)
+            : z >= 0.2 ? 1 - Math.Exp(-8.318 + 42.796 * z - 59.938 * z * z)
+            : 1 - Math.Exp(-13.436 + 101.14 * z - 223.73 * z * z);
+        return Math.Clamp(p, 0.0, 1.0);
+    }
+
+    /// <summary>
+    /// Normal case, mean and variance estimated: W* = W²(1 + 0.5/n) and the p-value approximation of
+    /// D'Agostino and Stephens (1986), Table 4.9.
+    /// </summary>
+    public static double CramerVonMisesNormalPValue(double w, int n)
+    {
+        double z = w * (1 + 0.5 / n);
+        double p = z >= 0.092 ? Math.Exp(1.111 - 34.242 * z + 12.832 * z * z)
+            : z >= 0.051 ? Math.Exp(0.886 - 31.62 * z + 10.897 * z * z)
+            : z >= 0.0275 ? 1 - Math.Exp(-5.903 + 179.546 * z - 1515.29 * z * z)
+            : 1 - Math.Exp(-13.953 + 775.5 * z - 12542.61 * z * z);
+        return Math.Clamp(p, 0.0, 1.0);
+    }
+}
