@@ -29,7 +29,11 @@ public static class CopulaMaximumLikelihood
     /// <summary>Above this many pairs the subsample-then-Newton path is taken.</summary>
     public const int LargeSample = 20_000;
 
-    private const int SubsampleSize = 10_000;
+    /// <summary>
+    /// Subsample of max(10,000, n/20) pairs: big enough that its optimum is within a few full-sample
+    /// standard errors, so two Newton steps on all the data usually finish the job.
+    /// </summary>
+    private static int SubsampleSize(int n) => Math.Max(10_000, n / 20);
 
     /// <param name="start">Starting parameters of the unrotated family (e.g. from <see cref="ICopulaFamily.StartFromTau"/>).</param>
     /// <param name="allowLargeSamplePath">False forces the direct search on all the data (used by tests to cross-check the fast path).</param>
@@ -63,7 +67,7 @@ public static class CopulaMaximumLikelihood
         int n = u.Length;
         if (allowLargeSamplePath && n > LargeSample)
         {
-            int stride = n / SubsampleSize;
+            int stride = n / SubsampleSize(n);
             var su = new double[n / stride];
             var sv = new double[su.Length];
             for (int i = 0; i < su.Length; i++) { su[i] = u[i * stride]; sv[i] = v[i * stride]; }
