@@ -52,11 +52,20 @@ public static class CopulaMaximumLikelihood
             };
         }
 
-        Func<double[], double> LogLikOf(double[] uu, double[] vv) => t =>
+        bool elliptical = EllipticalLikelihood.TryCreate(family, rotation, start, u, v, maxDegreeOfParallelism) is not null;
+        Func<double[], double> LogLikOf(double[] uu, double[] vv)
         {
-            var c = TryCreate(family, rotation, transforms, t);
-            return c is null ? double.NegativeInfinity : CopulaLogLikelihood.Sum(c, uu, vv, maxDegreeOfParallelism);
-        };
+            if (elliptical)
+            {
+                var cached = EllipticalLikelihood.TryCreate(family, rotation, start, uu, vv, maxDegreeOfParallelism)!;
+                return t => cached.LogLikelihood(ToNatural(transforms, t));
+            }
+            return t =>
+            {
+                var c = TryCreate(family, rotation, transforms, t);
+                return c is null ? double.NegativeInfinity : CopulaLogLikelihood.Sum(c, uu, vv, maxDegreeOfParallelism);
+            };
+        }
         var logLik = LogLikOf(u, v);
 
         var t0 = new double[k];
@@ -71,7 +80,7 @@ public static class CopulaMaximumLikelihood
             var su = new double[n / stride];
             var sv = new double[su.Length];
             for (int i = 0; i < su.Length; i++) { su[i] = u[i * stride]; sv[i] = v[i * stride]; }
-            var coarse = Search(LogLikOf(su, sv), t0, transforms);
+            var coarse = Search(LogLikOf(su, sv), t0, transforms, elliptical);
             var polished = NewtonPolish(logLik, coarse.Point, transforms);
             if (polished is { } p)
             {
@@ -79,10 +88,10 @@ public static class CopulaMaximumLikelihood
                 hessian = p.Hessian;
             }
             else
-                found = Search(logLik, coarse.Point, transforms);
+                found = Search(logLik, coarse.Point, transforms, elliptical);
         }
         else
-            found = Search(logLik, t0, transforms);
+            found = Search(logLik, t0, transforms, elliptical);
 
         double maxLogLik = -found.Value;
         if (!double.IsFinite(maxLogLik))
@@ -132,14 +141,41 @@ public static class CopulaMaximumLikelihood
         };
     }
 
-    /// <summary>Minimum of −ℓ from <paramref name="t0"/>: Brent for one free coordinate, Nelder–Mead for several.</summary>
-    private static MinimumFound Search(Func<double[], double> logLik, double[] t0, ParameterTransform[] transforms)
+    /// <summary>
+    /// Minimum of −ℓ from <paramref name="t0"/>: Brent for one free coordinate; for an elliptical family with a
+    /// shape parameter (Student t's ν) Brent on the profile log-likelihood ℓ_p(ν) = max_ρ ℓ(ρ, ν), each profile
+    /// point maximised over ρ by Brent on cached quantiles (the joint maximum is the maximum of the profile);
+    /// Nelder–Mead for any other several-parameter family.
+    /// </summary>
+    private static MinimumFound Search(Func<double[], double> logLik, double[] t0, ParameterTransform[] transforms, bool elliptical)
     {
         int k = t0.Length;
         var lo = new double[k];
         var hi = new double[k];
         for (int i = 0; i < k; i++) { lo[i] = transforms[i].FreeMin; hi[i] = transforms[i].FreeMax; }
         if (k == 1) return Minimizers.Scalar(t => -logLik([t]), t0[0], FirstStep, lo[0], hi[0]);
+        if (k == 2 && elliptical)
+        {
+            double rho = t0[0];
+            bool innerConverged = true;
+            int evals = 0;
+            MinimumFound Inner(double shape)
+            {
+                var inner = Minimizers.Scalar(t => -logLik([t, shape]), rho, FirstStep, lo[0], hi[0]);
+                evals += inner.Evaluations;
+                return inner;
+            }
+            double Profile(double shape)
+            {
+                var inner = Inner(shape);
+                rho = inner.Point[0]; // warm start for the next profile point
+                innerConverged &= inner.Converged;
+                return inner.Value;
+            }
+            var outer = Minimizers.Scalar(Profile, t0[1], 0.2, lo[1], hi[1], tolerance: 1e-7);
+            var last = Inner(outer.Point[0]);
+            return new MinimumFound([last.Point[0], outer.Point[0]], last.Value, outer.Converged && innerConverged && last.Converged, evals);
+        }
         var step = new double[k];
         Array.Fill(step, 0.2);
         return Minimizers.NelderMead(t => -logLik(t), t0, step, lo, hi);
@@ -200,6 +236,13 @@ public static class CopulaMaximumLikelihood
         return null;
     }
 
+    private static double[] ToNatural(ParameterTransform[] transforms, double[] free)
+    {
+        var p = new double[free.Length];
+        for (int i = 0; i < p.Length; i++) p[i] = transforms[i].FromFree(free[i]);
+        return p;
+    }
+
     internal static ParameterTransform[] Transforms(ICopulaFamily family)
     {
         int k = family.ParameterNames.Count;
@@ -210,11 +253,9 @@ public static class CopulaMaximumLikelihood
 
     internal static ICopula? TryCreate(ICopulaFamily family, int rotation, ParameterTransform[] transforms, ReadOnlySpan<double> free)
     {
-        var p = new double[transforms.Length];
-        for (int i = 0; i < p.Length; i++) p[i] = transforms[i].FromFree(free[i]);
         try
         {
-            return RotatedCopula.Rotate(family.Create(p), rotation);
+            return RotatedCopula.Rotate(family.Create(ToNatural(transforms, free.ToArray())), rotation);
         }
         catch (ArgumentException)
         {
