@@ -9,6 +9,24 @@ public sealed record AnalysisOutputs
     public string? JsonPath { get; init; }
     public string? ReportFolder { get; init; }
     public bool Force { get; init; }
+    public Commands.FigureRequest? Figures { get; init; }
+
+    /// <summary>How to name the report folder in messages, when it is written somewhere temporary first.</summary>
+    public string? ReportFolderLabel { get; init; }
+}
+
+/// <summary>
+/// Progress lines on stderr, written at once and in order. (System.Progress posts each report to the
+/// thread pool, so lines from parallel work arrive late and shuffled.)
+/// </summary>
+public sealed class ConsoleProgress(TextWriter error) : IProgress<string>
+{
+    private readonly object _gate = new();
+
+    public void Report(string value)
+    {
+        lock (_gate) error.WriteLine($"pairfit: {value}...");
+    }
 }
 
 /// <summary>Runs one analysis and writes its console summary, results file and report folder.</summary>
@@ -22,7 +40,7 @@ public static class AnalysisRun
             throw new Core.Common.PairFitInputException($"results file '{jp}' already exists; choose another with --json or add --force to replace it.");
         try
         {
-            var progress = new Progress<string>(s => error.WriteLine($"pairfit: {s}..."));
+            var progress = new ConsoleProgress(error);
             var results = AnalysisPipeline.Run(options, progress);
             ConsoleSummary.Write(results, output);
             if (outputs.JsonPath is { } jsonPath)
@@ -34,7 +52,7 @@ public static class AnalysisRun
             {
                 ResultsFile.Write(results, Path.Combine(folder.Staging, "results.json"));
                 folder.Commit();
-                error.WriteLine($"pairfit: report written to {outputs.ReportFolder}");
+                error.WriteLine($"pairfit: report written to {outputs.ReportFolderLabel ?? outputs.ReportFolder}");
             }
             return results;
         }

@@ -1,4 +1,4 @@
-using System.Globalization;
+using PairFit.Cli.Printing;
 using PairFit.Core.Results;
 
 namespace PairFit.Cli;
@@ -8,10 +8,16 @@ public static class ConsoleSummary
 {
     public static void Write(AnalysisResults r, TextWriter w)
     {
-        var inv = CultureInfo.InvariantCulture;
         w.WriteLine($"Data: {r.Input.File ?? "(in memory)"}  x = {r.Input.XColumn}, y = {r.Input.YColumn}");
         w.WriteLine($"Rows: {r.Input.RowsRead} read, {r.Input.RowsUsed} used, {r.Input.RowsRead - r.Input.RowsUsed} dropped");
         foreach (var (reason, count) in r.Input.Dropped)
             w.WriteLine($"  dropped {count,8}  {reason}");
+        w.WriteLine();
+        DependenceTable.Write(r.Dependence, r.Input.XColumn, r.Input.YColumn, w);
+        if (r.Copula is { } c)
+        {
+            w.WriteLine();
+            CopulaTable.Write(c, w);
+        }
     }
 }

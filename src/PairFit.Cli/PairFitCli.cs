@@ -26,6 +26,8 @@ public static class PairFitCli
             DemoCommand.Build(),
             GenerateDemoDataCommand.Build(),
             SimulateCommand.Build(),
+            ProjectCommand.Build(),
+            JointCommand.Build(),
         };
         return root;
     }

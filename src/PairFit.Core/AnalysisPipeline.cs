@@ -1,5 +1,10 @@
+using System.Globalization;
+using PairFit.Core.Copulas.Fitting;
 using PairFit.Core.Data;
 using PairFit.Core.Dependence;
+using PairFit.Core.Marginals;
+using PairFit.Core.Model;
+using PairFit.Core.Projection;
 using PairFit.Core.Results;
 
 namespace PairFit.Core;
@@ -11,32 +16,85 @@ public sealed record AnalysisOptions
     public required ColumnSelector X { get; init; }
     public required ColumnSelector Y { get; init; }
     public CsvOptions Csv { get; init; } = new();
+
+    /// <summary>How to name the input file in the results (default: the path as given).</summary>
+    public string? SourceLabel { get; init; }
     public int Seed { get; init; } = 20261202;
+
+    /// <summary>Marginal options of X and Y (VariableName is filled in from the column names).</summary>
+    public MarginalOptions XMarginal { get; init; } = new();
+    public MarginalOptions YMarginal { get; init; } = new();
+
+    /// <summary>Copula options (Seed is taken from <see cref="Seed"/>).</summary>
+    public CopulaOptions Copula { get; init; } = new();
+
+    /// <summary>Expressions Q(x, y) to project the fitted joint law onto.</summary>
+    public IReadOnlyList<string> Projections { get; init; } = [];
+
+    /// <summary>Projection options (Seed is taken from <see cref="Seed"/>).</summary>
+    public ProjectionOptions Projection { get; init; } = new();
+
+    /// <summary>False stops after the dependence measures (no marginals, copulas or projections).</summary>
+    public bool FitModel { get; init; } = true;
 }
 
 /// <summary>
-/// The whole analysis as one pure composition of stages: data → dependence → marginals →
-/// copulas → projection. The command line only gathers options, calls this and prints.
+/// The whole analysis as one composition of stages: data → dependence → marginals → copulas →
+/// projection. Each stage is a function of the previous stages' records plus options; the command
+/// line only gathers options, calls this and prints.
 /// </summary>
 public static class AnalysisPipeline
 {
     public static AnalysisResults Run(AnalysisOptions options, IProgress<string>? progress = null)
     {
+        progress?.Report($"reading {options.CsvPath}");
         var sample = PairedCsvReader.Read(options.CsvPath, options.X, options.Y, options.Csv);
-        return Run(sample, options, progress);
+        return Run(sample, options, progress).Results;
     }
 
-    public static AnalysisResults Run(PairedSample sample, AnalysisOptions options, IProgress<string>? progress = null)
+    /// <summary>Runs every stage on a sample; also returns the fitted joint model (null when not fitted).</summary>
+    public static (AnalysisResults Results, JointModel? Model) Run(PairedSample sample, AnalysisOptions options, IProgress<string>? progress = null)
     {
-        progress?.Report("dependence measures");
+        progress?.Report($"dependence measures on {sample.Count} pairs");
         var dependence = DependenceAnalysis.Compute(sample);
-        return new AnalysisResults
+
+        MarginalsSection? marginals = null;
+        CopulaSection? copula = null;
+        ModelSection? modelSection = null;
+        JointModel? model = null;
+        List<ProjectionSection>? projections = null;
+        if (options.FitModel)
+        {
+            progress?.Report($"marginal fits of {sample.XName} and {sample.YName}");
+            var mx = MarginalAnalysis.Fit(sample.X, options.XMarginal with { VariableName = options.XMarginal.VariableName ?? sample.XName });
+            var my = MarginalAnalysis.Fit(sample.Y, options.YMarginal with { VariableName = options.YMarginal.VariableName ?? sample.YName });
+            marginals = new MarginalsSection { X = mx.Section, Y = my.Section };
+
+            progress?.Report("copula fits");
+            var cf = CopulaAnalysis.Fit(sample, mx.Selected, my.Selected, options.Copula with { Seed = options.Seed }, progress);
+            copula = cf.Section;
+            model = new JointModel(cf.X ?? mx.Selected, cf.Y ?? my.Selected, cf.Selected);
+            modelSection = ModelSection.From(model, sample.XName, sample.YName);
+
+            if (options.Projections.Count > 0)
+            {
+                projections = [];
+                foreach (var expression in options.Projections)
+                {
+                    progress?.Report($"projection of {expression}");
+                    projections.Add(ProjectionAnalysis.Project(model, expression, sample.XName, sample.YName, sample,
+                        options.Projection with { Seed = options.Seed }));
+                }
+            }
+        }
+
+        var results = new AnalysisResults
         {
             Tool = ToolInfo.NameAndVersion,
-            CreatedUtc = DateTime.UtcNow.ToString("yyyy-MM-ddTHH:mm:ssZ"),
+            CreatedUtc = DateTime.UtcNow.ToString("yyyy-MM-ddTHH:mm:ssZ", CultureInfo.InvariantCulture),
             Input = new InputSection
             {
-                File = sample.Rows.Source,
+                File = options.SourceLabel ?? sample.Rows.Source,
                 XColumn = sample.XName,
                 YColumn = sample.YName,
                 RowsRead = sample.Rows.RowsRead,
@@ -44,8 +102,32 @@ public static class AnalysisPipeline
                 Dropped = sample.Rows.DroppedByReason,
             },
             Dependence = dependence,
-            Settings = new Dictionary<string, string> { ["seed"] = options.Seed.ToString(System.Globalization.CultureInfo.InvariantCulture) },
+            Marginals = marginals,
+            Copula = copula,
+            Model = modelSection,
+            Projections = projections,
+            Settings = Settings(options),
         };
+        return (results, model);
+    }
+
+    private static Dictionary<string, string> Settings(AnalysisOptions o)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        var s = new Dictionary<string, string>
+        {
+            ["seed"] = o.Seed.ToString(inv),
+            ["xMarginal"] = o.XMarginal.Forced ?? (o.XMarginal.Candidates is { } cx ? string.Join(",", cx) : "default candidates"),
+            ["yMarginal"] = o.YMarginal.Forced ?? (o.YMarginal.Candidates is { } cy ? string.Join(",", cy) : "default candidates"),
+            ["marginalMethod"] = o.XMarginal.Method,
+            ["copulaMethod"] = o.Copula.Method,
+            ["copulaFamilies"] = o.Copula.Families is { } f ? string.Join(",", f) : "all",
+            ["gofReplicates"] = o.Copula.GofReplicates.ToString(inv),
+            ["gofAllFamilies"] = o.Copula.GofAllFamilies ? "true" : "false",
+        };
+        if (o.Csv.MissingTokens.Count > 0) s["missingTokens"] = string.Join(",", o.Csv.MissingTokens);
+        if (o.Csv.Delimiter is { } d) s["delimiter"] = d == '\t' ? "tab" : d.ToString();
+        return s;
     }
 }
 

@@ -2,6 +2,7 @@ using System.CommandLine;
 using PairFit.Cli.Demo;
 using PairFit.Core;
 using PairFit.Core.Data;
+using PairFit.Core.Projection;
 
 namespace PairFit.Cli.Commands;
 
@@ -31,8 +32,12 @@ public static class DemoCommand
                     string csv = Path.Combine(data, s.File);
                     File.WriteAllText(csv, DemoData.ReadText(s.File));
                     output.WriteLine($"== {s.Title} (synthetic) ==");
-                    var options = s.Options(csv, parse.GetValue(seed));
-                    AnalysisRun.Execute(options, new AnalysisOutputs { ReportFolder = Path.Combine(folder.Staging, s.Folder) }, output, error);
+                    var options = s.Options(csv, parse.GetValue(seed)) with { SourceLabel = $"data/{s.File} (synthetic demo data)" };
+                    AnalysisRun.Execute(options, new AnalysisOutputs
+                    {
+                        ReportFolder = Path.Combine(folder.Staging, s.Folder),
+                        ReportFolderLabel = Path.Combine(root, s.Folder),
+                    }, output, error);
                     output.WriteLine();
                 }
                 folder.Commit();
@@ -60,6 +65,9 @@ public static class DemoCommand
                 Y = new ColumnSelector("runoff_mm"),
                 Csv = new CsvOptions { MissingTokens = ["-9999"] },
                 Seed = seed,
+                // The runoff coefficient, and the rain that did not run off (infiltration and storage).
+                Projections = ["runoff_mm / rainfall_mm", "rainfall_mm - runoff_mm"],
+                Projection = new ProjectionOptions { Thresholds = [0.5, 1.0], Levels = [0.99] },
             }),
         new("Yearly losses of two fictional business lines", DemoDataGenerator.LossFile, "loss-lines",
             (csv, seed) => new AnalysisOptions
@@ -68,6 +76,9 @@ public static class DemoCommand
                 X = new ColumnSelector("line_a_loss_millions"),
                 Y = new ColumnSelector("line_b_loss_millions"),
                 Seed = seed,
+                // The total yearly loss of the two lines.
+                Projections = ["line_a_loss_millions + line_b_loss_millions"],
+                Projection = new ProjectionOptions { Thresholds = [150, 200], Levels = [0.99, 0.995] },
             }),
     ];
 }

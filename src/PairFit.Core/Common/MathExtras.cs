@@ -5,8 +5,20 @@ namespace PairFit.Core.Common;
 /// <summary>Small numerically careful helpers that .NET's Math lacks.</summary>
 public static class MathExtras
 {
-    /// <summary>exp(x) − 1 without cancellation near 0.</summary>
-    public static double ExpM1(double x) => SpecialFunctions.Expm1(x);
+    /// <summary>
+    /// exp(x) − 1 without cancellation near 0. MathNet 5.0.0's SpecialFunctions.Expm1 uses a
+    /// truncated series for |x| &lt; 0.2 and is off by up to ~3e−8 relative (seen at x = 0.05);
+    /// Kahan's trick (Higham 2002, section 1.14.1) is accurate to a few ulps everywhere.
+    /// </summary>
+    public static double ExpM1(double x)
+    {
+        double u = Math.Exp(x);
+        if (u == 1.0) return x;
+        double um1 = u - 1.0;
+        if (um1 == -1.0) return -1.0;
+        if (double.IsPositiveInfinity(u)) return u;
+        return um1 * x / Math.Log(u);
+    }
 
     /// <summary>log(1 + x) without cancellation near 0.</summary>
     public static double Log1P(double x) => SpecialFunctions.Log1p(x);

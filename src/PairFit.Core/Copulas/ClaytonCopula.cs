@@ -48,12 +48,17 @@ public sealed class ClaytonCopula : ICopula
         return Math.Exp(-LogGeneratorSum(u, v) / Theta);
     }
 
-    // h(v|u) = u^(−θ−1) (u^−θ + v^−θ − 1)^(−1/θ−1).
+    // h(v|u) = u^(−θ−1) (u^−θ + v^−θ − 1)^(−1/θ−1) = (1 + (v^−θ − 1) u^θ)^(−1/θ−1). The second form has
+    // no cancellation: with t = log((v^−θ − 1) u^θ) = θ log u + log expm1(−θ log v), log h = −(1 + 1/θ) softplus(t).
+    // (The first, as a difference of two large logs, lost ~1e−14 absolute near u → 0.)
     public double ConditionalCdf(double u, double v)
     {
         if (v <= 0) return 0.0;
         if (v >= 1) return 1.0;
-        return Math.Exp(-(Theta + 1) * Math.Log(u) - (1 / Theta + 1) * LogGeneratorSum(u, v));
+        double x = -Theta * Math.Log(v); // > 0
+        double t = Theta * Math.Log(u) + x + MathExtras.Log1MExp(x);
+        double softplus = t > 0 ? t + MathExtras.Log1P(Math.Exp(-t)) : MathExtras.Log1P(Math.Exp(t));
+        return Math.Exp(-(1 + 1 / Theta) * softplus);
     }
 
     // Solving h(v|u) = w: v = ((w^(−θ/(1+θ)) − 1) u^−θ + 1)^(−1/θ), in logs so it neither overflows nor cancels.

@@ -11,7 +11,12 @@ public static class CopulaRegistry
     public static readonly IReadOnlyList<ICopulaFamily> Families =
     [
         IndependenceCopula.Family,
+        GaussianCopula.Family,
+        StudentTCopula.Family,
         ClaytonCopula.Family,
+        GumbelCopula.Family,
+        FrankCopula.Family,
+        JoeCopula.Family,
     ];
 
     public static ICopulaFamily Find(string name)

@@ -18,26 +18,21 @@ public static class KendallTau
     {
         if (x.Length != y.Length) throw new ArgumentException($"x has {x.Length} values and y has {y.Length}; Kendall's tau needs pairs.");
         int n = x.Length;
-        var xs = x.ToArray();
-        var ys = y.ToArray();
-        for (int i = 0; i < n; i++)
-            if (double.IsNaN(xs[i]) || double.IsNaN(ys[i]))
-                throw new ArgumentException($"pair {i} holds NaN; Kendall's tau needs ordered values (drop missing pairs first).");
+        // Order-preserving integer keys: equal keys ⇔ equal values, and a radix sort instead of a comparison sort.
+        var xs = RadixSort.Keys(x, "x value");
+        var ys = RadixSort.Keys(y, "y value");
+        RadixSort.SortPairs(xs, ys); // lexicographic by (x, y)
 
-        // Lexicographic order by (x, y): sort by x, then sort y inside each run of tied x.
-        Array.Sort(xs, ys);
         var xTies = new TieSums();
         long jointTiedPairs = 0;
         for (int start = 0; start < n;)
         {
             int end = start + 1;
             while (end < n && xs[end] == xs[start]) end++;
-            int t = end - start;
-            if (t > 1)
+            if (end - start > 1)
             {
-                xTies.Add(t);
-                Array.Sort(ys, start, t);
-                for (int s = start; s < end;)
+                xTies.Add(end - start);
+                for (int s = start; s < end;) // y is sorted inside the run: runs of equal y are joint ties
                 {
                     int e = s + 1;
                     while (e < end && ys[e] == ys[s]) e++;
@@ -71,7 +66,7 @@ public static class KendallTau
     /// Bottom-up merge sort of <paramref name="a"/> that returns the number of pairs i &lt; j with
     /// a[i] &gt; a[j] (strict: equal values are not exchanges).
     /// </summary>
-    private static long MergeSortCountingExchanges(double[] a)
+    private static long MergeSortCountingExchanges(ulong[] a)
     {
         int n = a.Length;
         long exchanges = 0;
@@ -82,7 +77,7 @@ public static class KendallTau
             int hi = Math.Min(lo + block, n);
             for (int i = lo + 1; i < hi; i++)
             {
-                double v = a[i];
+                ulong v = a[i];
                 int j = i - 1;
                 while (j >= lo && a[j] > v) { a[j + 1] = a[j]; j--; }
                 a[j + 1] = v;
@@ -91,7 +86,7 @@ public static class KendallTau
         }
 
         var src = a;
-        var dst = new double[n];
+        var dst = new ulong[n];
         for (int width = block; width < n; width *= 2)
         {
             for (int lo = 0; lo < n; lo += 2 * width)
@@ -125,10 +120,7 @@ public static class KendallTau
     {
         int n = x.Length;
         var yRank = DenseRanks(y, out int levels, out var yGroup);
-        var order = new int[n];
-        for (int i = 0; i < n; i++) order[i] = i;
-        var xKeys = x.ToArray();
-        Array.Sort(xKeys, order);
+        var order = RadixSort.Order(x, "x value", out var xKeys);
         var xGroup = new int[n];
         var score = new long[n];
         var tree = new int[levels + 1];
@@ -178,10 +170,7 @@ public static class KendallTau
     private static int[] DenseRanks(ReadOnlySpan<double> values, out int levels, out int[] groupSize)
     {
         int n = values.Length;
-        var order = new int[n];
-        for (int i = 0; i < n; i++) order[i] = i;
-        var keys = values.ToArray();
-        Array.Sort(keys, order);
+        var order = RadixSort.Order(values, "y value", out var keys);
         var rank = new int[n];
         groupSize = new int[n];
         levels = 0;

@@ -3,14 +3,11 @@ namespace PairFit.Core.Dependence;
 /// <summary>Ranks with ties averaged, and the pseudo-observations built from them.</summary>
 public static class Ranks
 {
-    /// <summary>1-based ranks; tied values share the average of the ranks they occupy.</summary>
+    /// <summary>1-based ranks; tied values share the average of the ranks they occupy. NaN is refused (ArgumentException).</summary>
     public static double[] Average(ReadOnlySpan<double> values)
     {
         int n = values.Length;
-        var order = new int[n];
-        for (int i = 0; i < n; i++) order[i] = i;
-        var keys = values.ToArray();
-        Array.Sort(keys, order);
+        var order = RadixSort.Order(values, "value", out var keys);
         var ranks = new double[n];
         int start = 0;
         while (start < n)

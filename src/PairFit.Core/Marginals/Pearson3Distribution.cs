@@ -1,3 +1,4 @@
+using PairFit.Core.Common;
 using MathNet.Numerics;
 using PairFit.Core.Marginals.Fitting;
 

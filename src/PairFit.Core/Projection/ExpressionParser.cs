@@ -154,8 +154,6 @@ public static class ExpressionParser
                 throw new SyntaxError(t.Position, "')' has no matching '('");
             if (t.Kind != TokenKind.End)
                 throw new SyntaxError(t.Position, $"unexpected {Describe(t)} after a complete expression; expected an operator such as + or *");
-            if (node.Occurrences(ExpressionVariable.X) + node.Occurrences(ExpressionVariable.Y) == 0)
-                throw new SyntaxError(1, "the expression uses neither x nor y, so it has no distribution");
             return node;
         }
 

@@ -140,7 +140,15 @@ public sealed class InversionChain
     /// and returns how many. <paramref name="scratch"/> must be as long as <paramref name="result"/>.
     /// </summary>
     public int Preimage(DualInterval target, ReadOnlySpan<double> siblings, Span<DualInterval> result, Span<DualInterval> scratch)
+        => Preimage(target, siblings, result, scratch, out _);
+
+    /// <summary>
+    /// As above; <paramref name="flatMask"/> has bit k set when a flat piece of step k took part.
+    /// Where the mask changes as x moves, the probability jumps, so the quadrature cuts there.
+    /// </summary>
+    public int Preimage(DualInterval target, ReadOnlySpan<double> siblings, Span<DualInterval> result, Span<DualInterval> scratch, out ulong flatMask)
     {
+        flatMask = 0;
         var current = result;
         var next = scratch;
         current[0] = target;
@@ -148,8 +156,10 @@ public sealed class InversionChain
         for (int i = 0; i < _steps.Length && count > 0; i++)
         {
             int produced = 0;
+            bool fired = false;
             for (int k = 0; k < count; k++)
-                produced = StepPreimage(_steps[i].Kind, siblings[i], current[k], next, produced);
+                produced = StepPreimage(_steps[i].Kind, siblings[i], current[k], next, produced, ref fired);
+            if (fired) flatMask |= 1UL << Math.Min(i, 63);
             var swap = current;
             current = next;
             next = swap;
@@ -175,7 +185,7 @@ public sealed class InversionChain
         }
     }
 
-    private static int StepPreimage(StepKind kind, double s, DualInterval t, Span<DualInterval> output, int n)
+    private static int StepPreimage(StepKind kind, double s, DualInterval t, Span<DualInterval> output, int n, ref bool fired)
     {
         const double Inf = double.PositiveInfinity;
         switch (kind)
@@ -186,20 +196,20 @@ public sealed class InversionChain
             case StepKind.SiblingMinus: return Branch(t, -Inf, Inf, InverseKind.Reflect, s, output, n);
             case StepKind.TimesSibling:
                 if (double.IsNaN(s) || double.IsInfinity(s)) return n;
-                if (s == 0) return AllOrNothing(t, 0.0, -Inf, Inf, output, n);
+                if (s == 0) return AllOrNothing(t, 0.0, -Inf, Inf, output, n, ref fired);
                 return Branch(t, -Inf, Inf, InverseKind.Scale, 1 / s, output, n);
             case StepKind.OverSibling:
                 if (double.IsNaN(s) || s == 0 || double.IsInfinity(s)) return n;
                 return Branch(t, -Inf, Inf, InverseKind.Scale, s, output, n);
             case StepKind.SiblingOver:
                 if (double.IsNaN(s) || double.IsInfinity(s)) return n;
-                if (s == 0) return AllOrNothing(t, 0.0, -Inf, Inf, output, n);
+                if (s == 0) return AllOrNothing(t, 0.0, -Inf, Inf, output, n, ref fired);
                 // b > 0 gives t of the sign of s, b < 0 the other sign; b = s/t on both.
                 n = Branch(t, s > 0 ? 0.0 : -Inf, s > 0 ? Inf : -0.0, InverseKind.Reciprocal, s, output, n);
                 return Branch(t, s > 0 ? -Inf : 0.0, s > 0 ? -0.0 : Inf, InverseKind.Reciprocal, s, output, n);
             case StepKind.PowerOfSibling:
                 if (double.IsNaN(s) || double.IsInfinity(s)) return n;
-                if (s == 0) return AllOrNothing(t, 1.0, -Inf, Inf, output, n);
+                if (s == 0) return AllOrNothing(t, 1.0, -Inf, Inf, output, n, ref fired);
                 n = Branch(t, 0.0, Inf, InverseKind.Root, s, output, n);
                 if (Math.Floor(s) == s && Math.Abs(s) < 1e15)
                 {
@@ -211,7 +221,7 @@ public sealed class InversionChain
                 return n;
             case StepKind.SiblingToPower:
                 if (!(s > 0) || double.IsInfinity(s)) return n;
-                if (s == 1) return AllOrNothing(t, 1.0, -Inf, Inf, output, n);
+                if (s == 1) return AllOrNothing(t, 1.0, -Inf, Inf, output, n, ref fired);
                 return Branch(t, 0.0, Inf, InverseKind.LogBase, Math.Log(s), output, n);
             case StepKind.Exp: return Branch(t, 0.0, Inf, InverseKind.Log, 0, output, n);
             case StepKind.Log: return Branch(t, -Inf, Inf, InverseKind.Exp, 0, output, n);
@@ -223,10 +233,10 @@ public sealed class InversionChain
                 if (double.IsNaN(s)) return n;
                 // b < s: t = b; b ≥ s: t = s whatever b is.
                 n = Branch(t, -Inf, s, InverseKind.Identity, 0, output, n);
-                return AllOrNothing(t, s, s, Inf, output, n);
+                return AllOrNothing(t, s, s, Inf, output, n, ref fired);
             default: // Max
                 if (double.IsNaN(s)) return n;
-                n = AllOrNothing(t, s, -Inf, s, output, n);
+                n = AllOrNothing(t, s, -Inf, s, output, n, ref fired);
                 return Branch(t, s, Inf, InverseKind.Identity, 0, output, n);
         }
     }
@@ -234,10 +244,13 @@ public sealed class InversionChain
     private enum InverseKind { Identity, Negate, Shift, Reflect, Scale, Reciprocal, Root, NegativeRoot, NegativeOddRoot, LogBase, Log, Exp, Square }
 
     /// <summary>Adds [lo, hi] (b values) when the step's value is the constant c on that range of b and c lies in t.</summary>
-    private static int AllOrNothing(DualInterval t, double c, double lo, double hi, Span<DualInterval> output, int n)
+    private static int AllOrNothing(DualInterval t, double c, double lo, double hi, Span<DualInterval> output, int n, ref bool fired)
     {
         if (t.Lo.Value <= c && c <= t.Hi.Value && lo < hi)
+        {
             output[n++] = new DualInterval(Dual.Constant(lo), Dual.Constant(hi));
+            fired = true;
+        }
         return n;
     }
 

@@ -53,6 +53,8 @@ public static class ProjectionAnalysis
         ArgumentNullException.ThrowIfNull(model);
         Validate(options);
         var node = ExpressionParser.Parse(expression, xName, yName);
+        if (node.Occurrences(ExpressionVariable.X) + node.Occurrences(ExpressionVariable.Y) == 0)
+            throw new PairFitInputException($"expression \"{expression}\" uses neither x nor y (nor '{xName}', '{yName}'), so it has no distribution.");
         var program = new CompiledExpression(node);
         var chain = InversionChain.TryBuild(node);
         string method = options.Method.ToLowerInvariant() switch

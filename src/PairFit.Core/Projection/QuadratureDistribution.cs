@@ -1,4 +1,5 @@
 using PairFit.Core.Common;
+using PairFit.Core.Copulas;
 using PairFit.Core.Model;
 
 namespace PairFit.Core.Projection;
@@ -11,18 +12,20 @@ namespace PairFit.Core.Projection;
 ///   f_Q(q)   = ∫₀¹ Σ_ends ± c(u, F_Y(y_e)) f_Y(y_e) ∂y_e/∂q du,
 /// the delta-function identity f_Q(q) = ∫∫ δ(g(x, y) − q) f(x, y) dx dy written through the
 /// copula density and the marginal density, with S(x, I) = {y : g(x, y) ∈ I} a union of intervals.
-/// The integrand of a probability lies in [0, 1], so cutting (0, 1) to [1e−13, 1 − 1e−13] costs
-/// at most 2e−13. Panels are graded towards both ends and split where the preimage jumps.
+/// The integrand of a probability lies in [0, 1], so cutting (0, 1) to [1e−300, 1 − 2⁻⁵³] (the
+/// largest double below 1) costs at most 1.2e−16. Panels are graded towards both ends and split where the preimage jumps.
 /// </summary>
 public sealed class QuadratureDistribution
 {
     private static readonly double[] GradedBreaks =
     [
-        1e-13, 1e-9, 1e-6, 1e-4, 1e-3, 0.01, 0.05, 0.15, 0.3, 0.5, 0.7, 0.85, 0.95, 0.99, 0.999,
-        1 - 1e-4, 1 - 1e-6, 1 - 1e-9, 1 - 1e-13,
+        1e-300, 1e-30, 1e-13, 1e-9, 1e-6, 1e-4, 1e-3, 0.01, 0.05, 0.15, 0.3, 0.5, 0.7, 0.85, 0.95, 0.99, 0.999,
+        1 - 1e-4, 1 - 1e-6, 1 - 1e-9, 1 - 1e-13, 1 - 1.0 / (1L << 53),
     ];
 
-    private const double AbsoluteTolerance = 1e-11;
+    // Absolute tolerance far below any probability of interest, so that small tail probabilities
+    // are computed to the relative tolerance; QUADPACK's round-off floor stops needless refinement.
+    private const double AbsoluteTolerance = 1e-15;
     private const double RelativeTolerance = 1e-9;
 
     private readonly JointModel _model;
@@ -32,12 +35,15 @@ public sealed class QuadratureDistribution
     private readonly double[] _nodeX;
     private readonly double[] _nodeSiblings; // chain.Length per node
     private readonly int _maxIntervals;
+    private readonly int[] _nodeOrder;       // node indices sorted by u
+    private readonly ICopula _flippedY;      // copula of (U, 1 − V)
 
     public QuadratureDistribution(JointModel model, InversionChain chain)
     {
         _model = model;
         _chain = chain;
         _maxIntervals = Math.Max(4, chain.MaxIntervals);
+        _flippedY = FlipV(model.Copula);
         _breaks = BreakPoints(model, chain);
         int panels = _breaks.Length - 1;
         _nodeU = new double[15 * panels];
@@ -50,6 +56,7 @@ public sealed class QuadratureDistribution
             _nodeX[i] = model.X.Quantile(_nodeU[i]);
             chain.Siblings(_nodeX[i], _nodeSiblings.AsSpan(i * Math.Max(1, chain.Length), chain.Length));
         }
+        _nodeOrder = Enumerable.Range(0, _nodeU.Length).OrderBy(i => _nodeU[i]).ToArray();
     }
 
     /// <summary>P(Q ≤ q).</summary>
@@ -67,17 +74,63 @@ public sealed class QuadratureDistribution
         if (_chain.HasFlatPieces)
             return Math.Max(0.0, (Cdf(q + step) - Cdf(q - step)) / (2 * step));
         var target = new DualInterval(Dual.Constant(double.NegativeInfinity), new Dual(q, 1.0));
-        return Math.Max(0.0, Integrate(u => DensityIntegrand(u, target), (i) => DensityIntegrand(i, target)));
+        return Math.Max(0.0, Integrate(target, u => DensityIntegrand(u, target), (i) => DensityIntegrand(i, target)));
     }
 
     private double Probability(DualInterval target)
-        => Math.Clamp(Integrate(u => ProbabilityIntegrand(u, target), i => ProbabilityIntegrand(i, target)), 0.0, 1.0);
+        => Math.Clamp(Integrate(target, u => ProbabilityIntegrand(u, target), i => ProbabilityIntegrand(i, target)), 0.0, 1.0);
 
-    private double Integrate(Func<double, double> atU, Func<int, double> atNode)
+    private double Integrate(DualInterval target, Func<double, double> atU, Func<int, double> atNode)
     {
+        var jumps = _chain.HasFlatPieces ? FlatPieceJumps(target) : null;
+        if (jumps is { Count: > 0 })
+        {
+            var breaks = new List<double>(_breaks);
+            breaks.AddRange(jumps);
+            breaks.Sort();
+            return AdaptiveQuadrature.Integrate(atU, breaks.ToArray(), AbsoluteTolerance, RelativeTolerance);
+        }
         var initial = new double[_nodeU.Length];
         for (int i = 0; i < initial.Length; i++) initial[i] = atNode(i);
         return AdaptiveQuadrature.Integrate(atU, _breaks, AbsoluteTolerance, RelativeTolerance, initial: initial);
+    }
+
+    /// <summary>
+    /// Where a flat piece (min, max, ...) switches on or off as x moves, the conditional
+    /// probability jumps at a place that depends on q. Such places show up as a change of the
+    /// preimage's layout (which flat pieces took part, how many intervals) between neighbouring
+    /// precomputed nodes; each is then located by bisection in u and made a panel end, so no
+    /// panel straddles a jump.
+    /// </summary>
+    private List<double> FlatPieceJumps(DualInterval target)
+    {
+        var jumps = new List<double>();
+        Span<DualInterval> a = stackalloc DualInterval[_maxIntervals];
+        Span<DualInterval> b = stackalloc DualInterval[_maxIntervals];
+        Span<double> siblings = stackalloc double[Math.Max(1, _chain.Length)];
+        (ulong, int) Layout(ReadOnlySpan<double> s, Span<DualInterval> r, Span<DualInterval> t)
+        {
+            int n = _chain.Preimage(target, s, r, t, out ulong mask);
+            return (mask, n);
+        }
+        var previous = Layout(Siblings(_nodeOrder[0]), a, b);
+        for (int k = 1; k < _nodeOrder.Length; k++)
+        {
+            var current = Layout(Siblings(_nodeOrder[k]), a, b);
+            if (current != previous)
+            {
+                double lo = _nodeU[_nodeOrder[k - 1]], hi = _nodeU[_nodeOrder[k]];
+                for (int it = 0; it < 64 && hi - lo > 1e-15 * Math.Max(1.0, hi); it++)
+                {
+                    double mid = 0.5 * (lo + hi);
+                    _chain.Siblings(_model.X.Quantile(mid), siblings);
+                    if (Layout(siblings, a, b) == previous) lo = mid; else hi = mid;
+                }
+                jumps.Add(0.5 * (lo + hi));
+            }
+            previous = current;
+        }
+        return jumps;
     }
 
     private double ProbabilityIntegrand(int node, DualInterval target)
@@ -106,7 +159,24 @@ public sealed class QuadratureDistribution
         return _nodeSiblings.AsSpan(node * w, _chain.Length);
     }
 
-    /// <summary>P(g(x, Y) ∈ target | U = u) = Σ over preimage intervals of h(F_Y(hi) | u) − h(F_Y(lo) | u).</summary>
+    /// <summary>
+    /// The copula of (U, 1 − V), a rotation of the same family: flipping V composes with the
+    /// model's rotation as 0 → 270, 90 → 180, 180 → 90, 270 → 0 (Joe 2014, section 1.7). Its
+    /// conditional CDF at the marginal survival S_Y(y) gives P(Y &gt; y | U = u) without the
+    /// cancellation of 1 − h(F_Y(y) | u), which matters for small exceedance probabilities.
+    /// </summary>
+    private static ICopula FlipV(ICopula copula) => copula switch
+    {
+        IndependenceCopula => copula,
+        RotatedCopula r => RotatedCopula.Rotate(r.Inner, r.Rotation switch { 90 => 180, 180 => 90, _ => 0 }),
+        _ when copula.Rotation == 0 => RotatedCopula.Rotate(copula, 270),
+        _ => throw new ArgumentException($"copula rotation {copula.Rotation} without a RotatedCopula wrapper."),
+    };
+
+    /// <summary>
+    /// P(g(x, Y) ∈ target | U = u) = Σ over preimage intervals of P(lo &lt; Y ≤ hi | U = u), from the
+    /// conditional CDF h(F_Y(·) | u) in the lower half of Y and from the conditional survival in the upper half.
+    /// </summary>
     private double ConditionalProbability(double u, ReadOnlySpan<double> siblings, DualInterval target)
     {
         Span<DualInterval> intervals = stackalloc DualInterval[_maxIntervals];
@@ -114,8 +184,22 @@ public sealed class QuadratureDistribution
         int n = _chain.Preimage(target, siblings, intervals, scratch);
         double p = 0;
         for (int k = 0; k < n; k++)
-            p += ConditionalCdf(u, intervals[k].Hi.Value) - ConditionalCdf(u, intervals[k].Lo.Value);
+        {
+            double lo = intervals[k].Lo.Value, hi = intervals[k].Hi.Value;
+            p += double.IsFinite(lo) && _model.Y.Cdf(lo) > 0.5
+                ? ConditionalSurvival(u, lo) - ConditionalSurvival(u, hi)
+                : ConditionalCdf(u, hi) - ConditionalCdf(u, lo);
+        }
         return p;
+    }
+
+    private double ConditionalSurvival(double u, double y)
+    {
+        if (double.IsPositiveInfinity(y)) return 0.0;
+        double vBar = _model.Y.Survival(y);
+        if (vBar <= 0) return 0.0;
+        if (vBar >= 1) return 1.0;
+        return Math.Clamp(_flippedY.ConditionalCdf(u, vBar), 0.0, 1.0);
     }
 
     private double ConditionalCdf(double u, double y)

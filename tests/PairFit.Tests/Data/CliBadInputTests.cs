@@ -1,0 +1,83 @@
+using PairFit.Cli;
+
+namespace PairFit.Tests.Data;
+
+/// <summary>Bad input through the command line: exit code 2, one line naming the problem, no stack trace.</summary>
+public class CliBadInputTests : IDisposable
+{
+    private readonly TempCsv _files = new();
+    public void Dispose() => _files.Dispose();
+
+    private static (int Code, string Out, string Err) Run(params string[] args)
+    {
+        var o = new StringWriter();
+        var e = new StringWriter();
+        int code = PairFitCli.Run(args, o, e);
+        return (code, o.ToString(), e.ToString());
+    }
+
+    public static TheoryData<string, string?, string, string> AnalyzeCases() => new()
+    {
+        // name, file content (null = no file), --y column, expected words
+        { "missing file", null, "b", "does not exist" },
+        { "empty file", "", "b", "is empty" },
+        { "header only", "a,b\n", "b", "no data rows" },
+        { "unknown column", "a,b\n1,2\n3,4\n", "flow", "the columns are: a, b" },
+        { "non-numeric column", "a,b\n1,low\n2,high\n3,low\n", "b", "holds no numbers" },
+        { "one usable row", "a,b\n1,2\n3,NA\n,5\n", "b", "only one usable row" },
+        { "constant column", "a,b\n1,7\n2,7\n3,7\n", "b", "is constant" },
+        { "mixed delimiters", "a,b\n1,2\n3;4\n5,6\n", "b", "line 3 has 1 field(s) but the header has 2" },
+        { "non-finite value", "a,b\n1,2\n3,inf\n5,6\n", "b", "infinite" },
+    };
+
+    private static void AssertOneLineBadInput((int Code, string Out, string Err) r, string expected)
+    {
+        Assert.Equal(PairFitCli.ExitBadInput, r.Code);
+        string err = r.Err.TrimEnd();
+        Assert.DoesNotContain('\n', err);           // exactly one line
+        Assert.Contains(expected, err);
+        Assert.StartsWith("pairfit: error: ", err);
+        Assert.DoesNotContain("   at ", r.Err + r.Out);
+    }
+
+    [Theory]
+    [MemberData(nameof(AnalyzeCases))]
+    public void AnalyzeRefusesBadInputWithOneLine(string name, string? content, string yColumn, string expected)
+    {
+        string path = content is null ? _files.PathOf("absent.csv") : _files.Write(name.Replace(' ', '-') + ".csv", content);
+        var r = Run("analyze", path, "--x", "a", "--y", yColumn);
+        // analyze prints one progress line ("pairfit: dependence measures...") only after reading succeeded.
+        AssertOneLineBadInput(r, expected);
+    }
+
+    [Theory]
+    [InlineData("missing file", null, "does not exist")]
+    [InlineData("empty file", "", "is empty")]
+    [InlineData("header only", "a,b\n", "no data rows")]
+    [InlineData("mixed delimiters", "a,b\n1,2\n3;4\n", "line 3 has 1 field(s)")]
+    [InlineData("ambiguous header", "a;b,c\n1;2,3\n", "mixes delimiters")]
+    public void DescribeRefusesBadInputWithOneLine(string name, string? content, string expected)
+    {
+        string path = content is null ? _files.PathOf("absent.csv") : _files.Write(name.Replace(' ', '-') + ".csv", content);
+        AssertOneLineBadInput(Run("describe", path), expected);
+    }
+
+    [Fact]
+    public void BadDelimiterOptionIsOneLine()
+    {
+        string path = _files.Write("ok.csv", "a,b\n1,2\n3,4\n");
+        AssertOneLineBadInput(Run("describe", path, "--delimiter", "pipe-ish"), "--delimiter");
+    }
+
+    [Fact]
+    public void DescribePrintsEveryColumnWithItsType()
+    {
+        string path = _files.Write("ok.csv", "site,rain,flow\nA,1.5,2\nB,NA,3\nC,4.5,-9999\n");
+        var (code, output, _) = Run("describe", path, "--missing", "-9999");
+        Assert.Equal(0, code);
+        Assert.Contains("3 data row(s), 3 column(s); delimiter: comma", output);
+        Assert.Matches(@"1\s+site\s+text\s+3\s+0\s+0", output);
+        Assert.Matches(@"2\s+rain\s+number\s+3\s+1\s+2\s+1\.5\s+3\s+4\.5", output);
+        Assert.Matches(@"3\s+flow\s+integer\s+3\s+1\s+2\s+2\s+2\.5\s+3", output);
+    }
+}
