@@ -118,6 +118,27 @@ public sealed class QuadratureDistribution
             i => ConditionalDensity(set.NodeU[i], set.Siblings(i), target), coarse));
     }
 
+    /// <summary>
+    /// CDF and density at <paramref name="points"/> even steps from <paramref name="lo"/> to
+    /// <paramref name="hi"/> (coarse tolerance, for figures). Points are independent, so they run
+    /// in parallel; each result depends only on its q, never on the thread that computed it.
+    /// </summary>
+    public (double[] Values, double[] Cdf, double[] Density) Grid(double lo, double hi, int points)
+    {
+        var values = new double[points];
+        var cdf = new double[points];
+        var density = new double[points];
+        double step = (hi - lo) / (points - 1);
+        Parallel.For(0, points, i =>
+        {
+            double q = lo + i * step;
+            values[i] = q;
+            cdf[i] = Cdf(q, coarse: true);
+            density[i] = Density(q, 0.5 * step, coarse: true);
+        });
+        return (values, cdf, density);
+    }
+
     private double Probability(DualInterval target, bool coarse = false)
     {
         var set = _panels;
