@@ -214,7 +214,7 @@ public static class ProjectionAnalysis
         {
             double v = Quantile(a);
             valueAtRisk.Add(new RiskValue { Level = a, Value = v });
-            // TVaR_α = VaR_α + E[(Q − VaR_α)⁺]/(1 − α) for a continuous law (Acerbi and Tasche 2002, eq. 3.3).
+            // TVaR_α = VaR_α + E[(Q − VaR_α)⁺]/(1 − α) for a continuous law (Acerbi and Tasche 2002).
             tail.Add(new RiskValue { Level = a, Value = exist.TailMean ? v + HalfLineIntegral(r => SCoarse(v + r), scale) / (1 - a) : null });
         }
 
