@@ -183,8 +183,10 @@ public static class CopulaMaximumLikelihood
 
     /// <summary>
     /// Newton ascent t ← t − H⁻¹g on central-difference derivatives, from a point already close to the optimum
-    /// (Nocedal and Wright 2006, section 3.3), with step halving. Converged when a full Newton step shorter than
-    /// 1e−4 has been taken: quadratic convergence leaves an error of order (1e−4)², far inside the standard error.
+    /// (Nocedal and Wright 2006, section 3.3), with step halving. Converged once a full Newton step has been taken
+    /// that was shorter than 1e−4 or whose predicted gain ½gᵀ(−H)⁻¹g was below 0.1: under quadratic convergence
+    /// the gain left after such a step is of order gain²·C²/I (C the convergence constant, I ≥ n/… the information,
+    /// here n &gt; 20,000), i.e. below 1e−6. The Hessian of the last iteration serves for the standard errors.
     /// Returns null when the Hessian is not negative definite or no step improves ℓ, so the caller can fall back.
     /// </summary>
     private static (MinimumFound Found, MathNet.Numerics.LinearAlgebra.Matrix<double> Hessian)? NewtonPolish(
@@ -207,6 +209,8 @@ public static class CopulaMaximumLikelihood
             {
                 return null;
             }
+            double predictedGain = 0;
+            for (int i = 0; i < k; i++) predictedGain += 0.5 * g[i] * step[i];
             bool full = true, accepted = false;
             for (int halving = 0; halving < 20 && !accepted; halving++)
             {
@@ -222,7 +226,7 @@ public static class CopulaMaximumLikelihood
                 {
                     t = trial;
                     f = ft;
-                    if (full && longest <= 1e-4)
+                    if (full && (longest <= 1e-4 || predictedGain < 0.1))
                         return (new MinimumFound(t, -f, true, evals), h);
                     accepted = true;
                     continue;
