@@ -15,8 +15,9 @@ public sealed record CopulaEstimate
 /// <summary>
 /// Maximises Σ log c(u_i, v_i; θ) over one family and rotation, for given uniforms: pseudo-observations
 /// (maximum pseudo-likelihood, Genest, Ghoudi and Rivest 1995) or marginal probability transforms (IFM,
-/// Joe and Xu 1996). One parameter: bracketing + Brent on the free coordinate. Several (Student t's ρ
-/// and ν): Nelder–Mead jointly on the free coordinates, so ν stays inside the family's documented range.
+/// Joe and Xu 1996). One parameter: bracketing + Brent on the free coordinate. Student t (ρ, ν): profile
+/// likelihood over ν, Brent on free ν outside and on free ρ inside with cached t quantiles, so ν stays inside
+/// the family's documented range [2, 60]. Any other several-parameter family: Nelder–Mead on the free coordinates.
 /// Large samples (n &gt; <see cref="LargeSample"/>) are first fitted on an evenly spaced subsample and the
 /// answer polished on all the data by Newton steps on numerical derivatives, which also yield the
 /// observed information; this needs a handful of full-data passes instead of a few dozen.
