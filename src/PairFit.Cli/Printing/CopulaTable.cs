@@ -19,7 +19,7 @@ public static class CopulaTable
             _ => c.Method,
         };
         w.WriteLine(string.Create(Inv, $"Copula candidates ({how}); empirical Kendall's tau = {c.EmpiricalKendallTau:0.000}"));
-        w.WriteLine($"{"#",3}  {"family",-13}{"rot",4}  {"parameters (standard error)",-34}{"logLik",11}{"AIC",11}{"BIC",11}{"tau",8}{"tailL",7}{"tailU",7}{"GOF p",8}");
+        w.WriteLine($"{"#",3}  {"family",-13}{"rot",4}  {"parameters (standard error)",-40}{"logLik",11}{"AIC",11}{"BIC",11}{"tau",8}{"tailL",7}{"tailU",7}{"GOF p",8}");
         var notes = new List<string>();
         for (int i = 0; i < c.Candidates.Count; i++)
         {
@@ -28,7 +28,7 @@ public static class CopulaTable
             if (k.Note is not null) { notes.Add($"{k.Family} {k.Rotation}: {k.Note}"); mark += $"[{notes.Count}]"; }
             string gof = k.Gof is null ? "-" : k.Gof.PValue.ToString("0.000", Inv);
             w.WriteLine(string.Create(Inv,
-                $"{i + 1,3}  {k.Family,-13}{k.Rotation,4}  {Parameters(k),-34}{k.LogLikelihood,11:0.00}{k.Aic,11:0.00}{k.Bic,11:0.00}{k.KendallTau,8:0.000}{k.TailLower,7:0.00}{k.TailUpper,7:0.00}{gof,8} {mark}").TrimEnd());
+                $"{i + 1,3}  {k.Family,-13}{k.Rotation,4}  {Parameters(k),-40}{k.LogLikelihood,11:0.00}{k.Aic,11:0.00}{k.Bic,11:0.00}{k.KendallTau,8:0.000}{k.TailLower,7:0.00}{k.TailUpper,7:0.00}{gof,8} {mark}").TrimEnd());
         }
         var s = c.Selected;
         string test = s.Gof is null ? "" : string.Create(Inv, $"; Cramér–von Mises S_n = {s.Gof.Statistic:0.0000}, p = {s.Gof.PValue:0.000} ({s.Gof.Replicates} bootstrap replicates)");

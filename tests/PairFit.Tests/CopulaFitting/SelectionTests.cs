@@ -18,10 +18,10 @@ public class SelectionTests
     }
 
     /// <summary>
-    /// Each one-parameter family at Kendall's tau 0.5 (unrotated), n = 500, 50 seeds, all registered candidates.
-    /// "Most" is taken as at least 30 of 50. Measured with gaussian, clayton, gumbel, frank and joe registered:
-    /// clayton 34/50 (the rest joe 180°, whose lower tail is as heavy: λ 0.71 vs 0.73), gumbel 47/50,
-    /// frank 50/50, gaussian 49/50, joe 35/50 (the rest clayton 180°).
+    /// Each one-parameter family at Kendall's tau 0.5 (unrotated), n = 500, 50 seeds, against every registered
+    /// family and rotation except Student t, left out of this study only to keep it cheap (its fit needs t quantiles
+    /// at every ν tried). "Most" is taken as at least 30 of 50. Measured: clayton 34/50 (the rest joe 180°, whose
+    /// lower tail is as heavy: λ 0.71 vs 0.73), gumbel 47/50, frank 50/50, gaussian 49/50, joe 35/50 (the rest clayton 180°).
     /// </summary>
     [Theory]
     [MemberData(nameof(OneParameterFamilies))]
@@ -29,11 +29,12 @@ public class SelectionTests
     {
         var family = CopulaRegistry.Find(familyName);
         var truth = family.Create(family.StartFromTau(0.5)!);
+        var candidates = CopulaRegistry.Families.Select(f => f.Name).Where(n => n != "student-t").ToList();
         int hits = 0;
         for (int seed = 0; seed < 50; seed++)
         {
             var sample = FittingTestData.Simulate(truth, 500, 5000 + seed);
-            var r = CopulaAnalysis.Fit(sample, null, null, new CopulaOptions { GofReplicates = 0 });
+            var r = CopulaAnalysis.Fit(sample, null, null, new CopulaOptions { Families = candidates, GofReplicates = 0 });
             if (r.Section.Selected.Family == familyName && r.Section.Selected.Rotation == 0) hits++;
         }
         Assert.True(hits >= 30, $"{familyName}: true family chosen in {hits}/50 seeds");

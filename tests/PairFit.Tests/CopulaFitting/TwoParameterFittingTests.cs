@@ -34,16 +34,24 @@ public class TwoParameterFittingTests
     }
 
     [Fact]
-    public void LargeSampleNewtonPolishAgreesWithDirectNelderMead()
+    public void LargeSampleNewtonPolishLandsOnTheMaximum()
     {
+        // Above LargeSample pairs the fit is a subsample Nelder–Mead plus Newton steps on all the data. Checked
+        // independently of the optimiser: no point of a 9×9 grid spanning ±0.4 standard errors has a higher ℓ
+        // (a quadratic maximum would beat the grid's best neighbour by ≥ ½(0.1)² ≈ 5e-3, far above round-off).
         var s = FittingTestData.Simulate(new ClaytonIndependenceMixture(2.0, 0.7), CopulaMaximumLikelihood.LargeSample + 1000, 405);
         double[] u = Ranks.PseudoObservations(s.X), v = Ranks.PseudoObservations(s.Y);
         var fast = CopulaMaximumLikelihood.Fit(ClaytonIndependenceMixture.Family, 0, u, v, [1.0, 0.5]);
-        var direct = CopulaMaximumLikelihood.Fit(ClaytonIndependenceMixture.Family, 0, u, v, [1.0, 0.5], allowLargeSamplePath: false);
-        Assert.True(fast.LogLikelihood >= direct.LogLikelihood - 1e-6, $"{fast.LogLikelihood:R} vs {direct.LogLikelihood:R}");
-        for (int i = 0; i < 2; i++)
-            // Nelder–Mead stops on a 1e-10 relative spread of ℓ (|ℓ| ~ 1e4), i.e. within ~1e-2 se of the optimum.
-            Assert.True(Math.Abs(fast.Parameters[i] - direct.Parameters[i]) <= 0.05 * direct.StandardErrors[i]!.Value);
+        Assert.True(fast.Converged, fast.Note);
+        Assert.True(Math.Abs(fast.Parameters[0] - 2.0) <= 4 * fast.StandardErrors[0]!.Value);
+        Assert.True(Math.Abs(fast.Parameters[1] - 0.7) <= 4 * fast.StandardErrors[1]!.Value);
+        for (int i = -4; i <= 4; i++)
+            for (int j = -4; j <= 4; j++)
+            {
+                if (i == 0 && j == 0) continue;
+                double th = fast.Parameters[0] + 0.1 * i * fast.StandardErrors[0]!.Value, w = fast.Parameters[1] + 0.1 * j * fast.StandardErrors[1]!.Value;
+                Assert.True(CopulaLogLikelihood.Sum(new ClaytonIndependenceMixture(th, w), u, v) <= fast.LogLikelihood + 1e-6, $"grid point ({i}, {j})");
+            }
     }
 
     /// <summary>w·C_θ + (1 − w)·Π with C_θ Clayton; θ in [1e−6, 200], w in (0, 1).</summary>

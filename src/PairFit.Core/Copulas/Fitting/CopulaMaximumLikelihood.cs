@@ -15,8 +15,9 @@ public sealed record CopulaEstimate
 /// <summary>
 /// Maximises Σ log c(u_i, v_i; θ) over one family and rotation, for given uniforms: pseudo-observations
 /// (maximum pseudo-likelihood, Genest, Ghoudi and Rivest 1995) or marginal probability transforms (IFM,
-/// Joe and Xu 1996). One parameter: bracketing + Brent on the free coordinate. Several (Student t's ρ
-/// and ν): Nelder–Mead jointly on the free coordinates, so ν stays inside the family's documented range.
+/// Joe and Xu 1996). One parameter: bracketing + Brent on the free coordinate. Student t (ρ, ν): profile
+/// likelihood over ν, Brent on free ν outside and on free ρ inside with cached t quantiles, so ν stays inside
+/// the family's documented range [2, 60]. Any other several-parameter family: Nelder–Mead on the free coordinates.
 /// Large samples (n &gt; <see cref="LargeSample"/>) are first fitted on an evenly spaced subsample and the
 /// answer polished on all the data by Newton steps on numerical derivatives, which also yield the
 /// observed information; this needs a handful of full-data passes instead of a few dozen.
@@ -183,8 +184,10 @@ public static class CopulaMaximumLikelihood
 
     /// <summary>
     /// Newton ascent t ← t − H⁻¹g on central-difference derivatives, from a point already close to the optimum
-    /// (Nocedal and Wright 2006, section 3.3), with step halving. Converged when a full Newton step shorter than
-    /// 1e−4 has been taken: quadratic convergence leaves an error of order (1e−4)², far inside the standard error.
+    /// (Nocedal and Wright 2006, section 3.3), with step halving. Converged once a full Newton step has been taken
+    /// that was shorter than 1e−4 or whose predicted gain ½gᵀ(−H)⁻¹g was below 0.1: under quadratic convergence
+    /// the gain left after such a step is of order gain²·C²/I (C the convergence constant, I ≥ n/… the information,
+    /// here n &gt; 20,000), i.e. below 1e−6. The Hessian of the last iteration serves for the standard errors.
     /// Returns null when the Hessian is not negative definite or no step improves ℓ, so the caller can fall back.
     /// </summary>
     private static (MinimumFound Found, MathNet.Numerics.LinearAlgebra.Matrix<double> Hessian)? NewtonPolish(
@@ -207,6 +210,8 @@ public static class CopulaMaximumLikelihood
             {
                 return null;
             }
+            double predictedGain = 0;
+            for (int i = 0; i < k; i++) predictedGain += 0.5 * g[i] * step[i];
             bool full = true, accepted = false;
             for (int halving = 0; halving < 20 && !accepted; halving++)
             {
@@ -222,7 +227,7 @@ public static class CopulaMaximumLikelihood
                 {
                     t = trial;
                     f = ft;
-                    if (full && longest <= 1e-4)
+                    if (full && (longest <= 1e-4 || predictedGain < 0.1))
                         return (new MinimumFound(t, -f, true, evals), h);
                     accepted = true;
                     continue;

@@ -17,10 +17,11 @@ public readonly struct ParameterTransform
         if (!(upper > lower)) throw new ArgumentException($"parameter range [{lower}, {upper}] is empty.");
         _lo = lower;
         _hi = upper;
+        // A hair inside each finite bound; an open end of a half-line stops at e^±50 from the other bound.
         double margin = 1e-9 * (double.IsFinite(upper - lower) ? Math.Max(1.0, upper - lower) : Math.Max(1.0, Math.Abs(lower)));
-        FreeMin = double.IsFinite(lower) ? ToFreeUnclamped(lower + margin) : -FreeLimitUnbounded;
-        FreeMax = double.IsFinite(upper) ? ToFreeUnclamped(upper - margin) : FreeLimitUnbounded;
-        if (!double.IsFinite(lower) && !double.IsFinite(upper)) { FreeMin = -1e12; FreeMax = 1e12; }
+        bool identity = !double.IsFinite(lower) && !double.IsFinite(upper);
+        FreeMin = double.IsFinite(lower) ? ToFreeUnclamped(lower + margin) : identity ? -1e12 : -FreeLimitUnbounded;
+        FreeMax = double.IsFinite(upper) ? ToFreeUnclamped(upper - margin) : identity ? 1e12 : FreeLimitUnbounded;
     }
 
     public double FreeMin { get; }
