@@ -183,7 +183,7 @@ public static class MarginalAnalysis
             // from the stratified subsample at large n (StandardErrors explains the scaling).
             var curvatureSample = family.LikelihoodFromSufficientStatistics ? sample : sample.Subsample;
             double?[] se = estimate.Method == MarginalOptions.MethodMle && finite
-                ? StandardErrors.FromObservedInformation(p => family.LogLikelihood(curvatureSample, p), estimate.Parameters, estimate.FixedMask,
+                ? estimate.StandardErrors ?? StandardErrors.FromObservedInformation(p => family.LogLikelihood(curvatureSample, p), estimate.Parameters, estimate.FixedMask,
                     (double)sample.N / curvatureSample.N)
                 : new double?[k];
             if (estimate.Method != MarginalOptions.MethodMle) notes.Add("no standard errors for L-moment estimates");

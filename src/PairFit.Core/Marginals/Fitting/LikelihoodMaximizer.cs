@@ -91,6 +91,18 @@ public static class LikelihoodMaximizer
         return new(x, fx, false, "Newton iteration limit reached");
     }
 
+    /// <summary>
+    /// Standard errors from the observed information at <paramref name="estimate"/>: the Hessian as
+    /// forward differences of the analytic gradient (on a stratified subsample of at most
+    /// <see cref="SubsampleSize"/> values, scaled by n/m, at large n), inverted.
+    /// </summary>
+    public static double?[] StandardErrors(LogLikelihoodWithGradient f, double[] values, double[] estimate)
+    {
+        var sub = MarginalSample.Stratified(values, SubsampleSize);
+        var h = SubsampleHessian(f, sub, estimate, (double)values.Length / sub.Length);
+        return Fitting.StandardErrors.FromInformation(h is null ? null : -h, estimate.Length);
+    }
+
     /// <summary>Forward differences of the analytic gradient on the subsample, symmetrised, times n/m.</summary>
     private static Matrix<double>? SubsampleHessian(LogLikelihoodWithGradient f, double[] sub, double[] x, double weight)
     {
