@@ -168,6 +168,13 @@ public static class MarginalAnalysis
             else estimate = family.FitMaximumLikelihood(sample);
             if (estimate.Note is not null) notes.Add(estimate.Note);
 
+            if (!estimate.Parameters.All(double.IsFinite))
+                return (new MarginalCandidate
+                {
+                    Family = familyName, Method = estimate.Method, Converged = false,
+                    Note = $"the {(estimate.Method == MarginalOptions.MethodMle ? "maximum-likelihood" : "L-moment")} estimate is undefined for these data"
+                        + (estimate.Note is null ? "" : $" ({estimate.Note})"),
+                }, null);
             IMarginalDistribution distribution;
             try { distribution = family.Create(estimate.Parameters); }
             catch (ArgumentException e)
