@@ -197,7 +197,16 @@ public sealed class GammaDistribution : IMarginalDistribution
     {
         if (!(p > 0)) return upper ? double.PositiveInfinity : 0.0;
         if (!(p < 1)) return upper ? 0.0 : double.PositiveInfinity;
-        double y = SpecialFunctions.GammaLowerRegularizedInv(k, upper ? 1 - p : p);
+        // Start: MathNet's inverse, or for very large k the Wilson–Hilferty cube-root normal
+        // approximation y ≈ k (1 − 1/(9k) + z/(3√k))³ (Johnson, Kotz and Balakrishnan 1994, eq. 17.118).
+        double y;
+        if (k > AsymptoticShape)
+        {
+            double z = -Constants.Sqrt2 * SpecialFunctions.ErfcInv(2 * p) * (upper ? -1 : 1);
+            double c = 1 - 1 / (9 * k) + z / (3 * Math.Sqrt(k));
+            y = k * c * c * c;
+        }
+        else y = SpecialFunctions.GammaLowerRegularizedInv(k, upper ? 1 - p : p);
         if (!(y > 0) || !double.IsFinite(y)) y = k;   // the mean: a safe start when the inverse fails
         double target = Math.Log(p), t = Math.Log(y);
         var density = new StandardGamma(k);
