@@ -1,5 +1,7 @@
 using PairFit.Core;
 using PairFit.Core.Results;
+using PairFit.Figures;
+using PairFit.Figures.Report;
 
 namespace PairFit.Cli;
 
@@ -22,10 +24,11 @@ public sealed record AnalysisOutputs
 public sealed class ConsoleProgress(TextWriter error) : IProgress<string>
 {
     private readonly object _gate = new();
+    private readonly System.Diagnostics.Stopwatch _clock = System.Diagnostics.Stopwatch.StartNew();
 
     public void Report(string value)
     {
-        lock (_gate) error.WriteLine($"pairfit: {value}...");
+        lock (_gate) error.WriteLine($"pairfit: [{_clock.Elapsed.TotalSeconds,6:0.0} s] {value}...");
     }
 }
 
@@ -41,7 +44,8 @@ public static class AnalysisRun
         try
         {
             var progress = new ConsoleProgress(error);
-            var results = AnalysisPipeline.Run(options, progress);
+            var sample = AnalysisPipeline.ReadSample(options, progress);
+            var (results, model) = AnalysisPipeline.Run(sample, options, progress);
             ConsoleSummary.Write(results, output);
             if (outputs.JsonPath is { } jsonPath)
             {
@@ -51,6 +55,16 @@ public static class AnalysisRun
             if (folder is not null)
             {
                 ResultsFile.Write(results, Path.Combine(folder.Staging, "results.json"));
+                var request = outputs.Figures ?? new Commands.FigureRequest(["png", "svg", "pdf"], 160, 200);
+                IReadOnlyList<FigureFile> figures = [];
+                if (request.Formats.Count > 0)
+                {
+                    progress.Report("figures");
+                    var figureOptions = new FigureOptions { Formats = request.Formats, WidthMm = request.WidthMm, Dpi = request.Dpi, Seed = options.Seed };
+                    figures = FigureSet.RenderAll(sample, results, model, folder.Staging, figureOptions);
+                }
+                progress.Report("report");
+                ReportWriter.Write(results, figures, folder.Staging);
                 folder.Commit();
                 error.WriteLine($"pairfit: report written to {outputs.ReportFolderLabel ?? outputs.ReportFolder}");
             }

@@ -14,10 +14,25 @@ public static class ConsoleSummary
             w.WriteLine($"  dropped {count,8}  {reason}");
         w.WriteLine();
         DependenceTable.Write(r.Dependence, r.Input.XColumn, r.Input.YColumn, w);
+        if (r.Marginals is { } m)
+        {
+            w.WriteLine();
+            MarginalTable.Write(m, w, r.Input.XColumn, r.Input.YColumn);
+        }
         if (r.Copula is { } c)
         {
             w.WriteLine();
             CopulaTable.Write(c, w);
+        }
+        foreach (var p in r.Projections ?? [])
+        {
+            w.WriteLine();
+            ProjectionTable.Write(p, w);
+        }
+        if (r.Joint is { } j)
+        {
+            w.WriteLine();
+            ProjectionTable.Write(j, w);
         }
     }
 }

@@ -34,6 +34,9 @@ public sealed record AnalysisOptions
     /// <summary>Projection options (Seed is taken from <see cref="Seed"/>).</summary>
     public ProjectionOptions Projection { get; init; } = new();
 
+    /// <summary>Design pair for joint exceedance probabilities and return periods; null = none.</summary>
+    public JointOptions? Joint { get; init; }
+
     /// <summary>False stops after the dependence measures (no marginals, copulas or projections).</summary>
     public bool FitModel { get; init; } = true;
 }
@@ -46,10 +49,12 @@ public sealed record AnalysisOptions
 public static class AnalysisPipeline
 {
     public static AnalysisResults Run(AnalysisOptions options, IProgress<string>? progress = null)
+        => Run(ReadSample(options, progress), options, progress).Results;
+
+    public static PairedSample ReadSample(AnalysisOptions options, IProgress<string>? progress = null)
     {
         progress?.Report($"reading {options.CsvPath}");
-        var sample = PairedCsvReader.Read(options.CsvPath, options.X, options.Y, options.Csv);
-        return Run(sample, options, progress).Results;
+        return PairedCsvReader.Read(options.CsvPath, options.X, options.Y, options.Csv);
     }
 
     /// <summary>Runs every stage on a sample; also returns the fitted joint model (null when not fitted).</summary>
@@ -63,6 +68,7 @@ public static class AnalysisPipeline
         ModelSection? modelSection = null;
         JointModel? model = null;
         List<ProjectionSection>? projections = null;
+        JointSection? joint = null;
         if (options.FitModel)
         {
             progress?.Report($"marginal fits of {sample.XName} and {sample.YName}");
@@ -86,6 +92,12 @@ public static class AnalysisPipeline
                         options.Projection with { Seed = options.Seed }));
                 }
             }
+
+            if (options.Joint is { } jointOptions)
+            {
+                progress?.Report("joint exceedance and return periods");
+                joint = JointAnalysis.Compute(model, jointOptions);
+            }
         }
 
         var results = new AnalysisResults
@@ -106,6 +118,7 @@ public static class AnalysisPipeline
             Copula = copula,
             Model = modelSection,
             Projections = projections,
+            Joint = joint,
             Settings = Settings(options),
         };
         return (results, model);

@@ -138,11 +138,15 @@ public sealed class ProjectionCliOptions
     public readonly Option<double[]> Threshold = new("--threshold") { Description = "Report P(Q > t) for this threshold t (repeatable)." };
     public readonly Option<double[]> Level = new("--level") { Description = "Value-at-risk and tail value-at-risk level, e.g. 0.99 (repeatable; default 0.99)." };
 
+    public readonly Option<double?> DesignX = new("--design-x") { Description = "X value of a design pair: adds joint exceedance probabilities and return periods (needs --design-y)." };
+    public readonly Option<double?> DesignY = new("--design-y") { Description = "Y value of the design pair." };
+    public readonly Option<double?> EventsPerYear = new("--events-per-year") { Description = "Mean number of records per year (1 for annual maxima); turns probabilities into return periods in years." };
+    public readonly Option<double?> ReturnPeriod = new("--return-period") { Description = "Target return period in years for the design isolines." };
+
     public void AddTo(Command c)
     {
-        c.Options.Add(Project);
-        c.Options.Add(Threshold);
-        c.Options.Add(Level);
+        foreach (var o in new Option[] { Project, Threshold, Level, DesignX, DesignY, EventsPerYear, ReturnPeriod })
+            c.Options.Add(o);
     }
 
     public AnalysisOptions Apply(ParseResult parse, AnalysisOptions o)
@@ -150,8 +154,18 @@ public sealed class ProjectionCliOptions
         var levels = parse.GetValue(Level) is { Length: > 0 } l ? l : [0.99];
         foreach (var level in levels)
             if (!(level > 0 && level < 1)) throw new Core.Common.PairFitInputException($"--level must be strictly between 0 and 1 (got {level.ToString(CultureInfo.InvariantCulture)}).");
+        double? dx = parse.GetValue(DesignX), dy = parse.GetValue(DesignY);
+        if (dx.HasValue != dy.HasValue)
+            throw new Core.Common.PairFitInputException("--design-x and --design-y go together: give both values of the design pair.");
+        if (parse.GetValue(EventsPerYear) is { } epy && !(epy > 0 && double.IsFinite(epy)))
+            throw new Core.Common.PairFitInputException($"--events-per-year must be a positive number (got {epy.ToString(CultureInfo.InvariantCulture)}).");
+        if (parse.GetValue(ReturnPeriod) is { } rp && !(rp > 0 && double.IsFinite(rp)))
+            throw new Core.Common.PairFitInputException($"--return-period must be a positive number of years (got {rp.ToString(CultureInfo.InvariantCulture)}).");
         return o with
         {
+            Joint = dx is { } a && dy is { } b
+                ? new JointOptions { XValue = a, YValue = b, EventsPerYear = parse.GetValue(EventsPerYear), ReturnPeriod = parse.GetValue(ReturnPeriod) }
+                : null,
             Projections = parse.GetValue(Project) ?? [],
             Projection = o.Projection with { Thresholds = parse.GetValue(Threshold) ?? [], Levels = levels },
         };

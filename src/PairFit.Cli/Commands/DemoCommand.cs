@@ -65,9 +65,11 @@ public static class DemoCommand
                 Y = new ColumnSelector("runoff_mm"),
                 Csv = new CsvOptions { MissingTokens = ["-9999"] },
                 Seed = seed,
-                // The runoff coefficient, and the rain that did not run off (infiltration and storage).
-                Projections = ["runoff_mm / rainfall_mm", "rainfall_mm - runoff_mm"],
+                // The event runoff coefficient: the share of the storm's rain that ran off.
+                Projections = ["runoff_mm / rainfall_mm"],
                 Projection = new ProjectionOptions { Thresholds = [0.5, 1.0], Levels = [0.99] },
+                // A storm of 85 mm giving 40 mm of runoff; 3,000 events in 25 years = 120 a year.
+                Joint = new JointOptions { XValue = 85, YValue = 40, EventsPerYear = 120, ReturnPeriod = 10 },
             }),
         new("Yearly losses of two fictional business lines", DemoDataGenerator.LossFile, "loss-lines",
             (csv, seed) => new AnalysisOptions
@@ -79,6 +81,8 @@ public static class DemoCommand
                 // The total yearly loss of the two lines.
                 Projections = ["line_a_loss_millions + line_b_loss_millions"],
                 Projection = new ProjectionOptions { Thresholds = [150, 200], Levels = [0.99, 0.995] },
+                // A year with 130 million on line A and 80 million on line B; one record per year.
+                Joint = new JointOptions { XValue = 130, YValue = 80, EventsPerYear = 1, ReturnPeriod = 100 },
             }),
     ];
 }
