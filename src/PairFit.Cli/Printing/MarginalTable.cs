@@ -28,7 +28,8 @@ public static class MarginalTable
         string method = v.Method == "lmoments" ? "L-moments where available, else maximum likelihood" : "maximum likelihood";
         w.WriteLine($"Marginal candidates for {label} (n = {v.N.ToString(Inv)}, {method})");
         var table = new TextTable("#", "family", "parameters (standard error)", ">logLik", ">AIC", ">BIC", ">dAIC", ">KS D", ">KS p", ">AD", ">AD p", ">CvM p", "");
-        var notes = new List<string>();
+        // Identical notes (e.g. "no L-moment estimator ...") share one footnote listing their families.
+        var notes = new List<(string Text, List<string> Families)>();
         var skipped = new List<MarginalCandidate>();
         int rank = 0;
         foreach (var c in v.Candidates)
@@ -38,8 +39,10 @@ public static class MarginalTable
             if (c.Converged == false) mark = ("! " + mark).Trim();
             if (c.Note is not null)
             {
-                notes.Add($"{c.Family}: {c.Note}");
-                mark = (mark + $" [{notes.Count}]").Trim();
+                int k = notes.FindIndex(n => n.Text == c.Note);
+                if (k < 0) { notes.Add((c.Note, [])); k = notes.Count - 1; }
+                notes[k].Families.Add(c.Family);
+                mark = (mark + $" [{k + 1}]").Trim();
             }
             var g = c.Gof;
             table.Add((++rank).ToString(Inv), c.Family + (c.Method == "lmoments" ? " (L-mom.)" : ""), Parameters(c),
@@ -50,9 +53,9 @@ public static class MarginalTable
         table.Write(w);
         w.WriteLine($"Selected: {v.Selected}{(v.SelectedBecause is { } b ? $" ({b})" : "")}");
         if (v.Candidates.Any(c => c.Converged == false)) w.WriteLine("  ! = optimiser did not meet its tolerance");
-        for (int i = 0; i < notes.Count; i++) w.WriteLine($"  [{i + 1}] {notes[i]}");
-        foreach (var pNote in v.Candidates.Select(c => c.Gof?.PValueNote).OfType<string>().Distinct())
-            w.WriteLine($"  p-values: {pNote}");
+        for (int i = 0; i < notes.Count; i++) w.WriteLine($"  [{i + 1}] {string.Join(", ", notes[i].Families)}: {notes[i].Text}");
+        foreach (var group in v.Candidates.Where(c => c.Gof?.PValueNote is not null).GroupBy(c => c.Gof!.PValueNote!))
+            w.WriteLine($"  p-values ({string.Join(", ", group.Select(c => c.Family))}): {group.Key}");
         if (skipped.Count > 0)
         {
             w.WriteLine("Not fitted:");

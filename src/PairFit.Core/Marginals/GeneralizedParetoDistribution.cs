@@ -114,7 +114,7 @@ public sealed class GeneralizedParetoDistribution : IMarginalDistribution
         var y = new double[n];
         for (int i = 0; i < n; i++) y[i] = (x[i] - location) / d;
         double yMax = y[n - 1];
-        double[] sub = MarginalSample.Stratified(y, LikelihoodMaximizer.SubsampleSize);
+        double[] sub = MarginalSample.Stratified(y, LikelihoodMaximizer.SearchSampleSize);
 
         // θ = expm1(u)/y_max keeps 1 + θy > 0 for every u. Returns ℓ and dℓ/du.
         (double Value, double Slope, double Xi) Profile(double[] v, double u)

@@ -179,7 +179,10 @@ public sealed class GevDistribution : IMarginalDistribution
                 frame.Standardise([.. GumbelDistribution.FromLMoments(s.LMoments), 0.0]),
             ];
             var outcome = LikelihoodMaximizer.Maximize(LogLikelihoodWithGradient, frame.Values, starts, [0.1, 0.1, 0.05]);
-            return new(frame.Unstandardise(outcome.Parameters), outcome.Converged, "mle", outcome.Note);
+            // Standard errors in standardised units; location and scale scale back with d, ξ does not.
+            var se = LikelihoodMaximizer.StandardErrors(LogLikelihoodWithGradient, frame.Values, outcome.Parameters);
+            double?[] seData = [se[0] * frame.Scale, se[1] * frame.Scale, se[2]];
+            return new(frame.Unstandardise(outcome.Parameters), outcome.Converged, "mle", outcome.Note, StandardErrors: seData);
         }
 
         public MarginalEstimate? FitLMoments(MarginalSample s) => new(FromLMoments(s.LMoments), true, "lmoments");

@@ -82,7 +82,7 @@ public sealed class GumbelDistribution : IMarginalDistribution
                 return sy / v.Length - beta - swy / sw;
             }
             double b0 = Math.Sqrt(6) / Math.PI;   // moment estimate: sd = π β / √6
-            double? logBeta = DataRoot.Find(Equation, x, MarginalSample.Stratified(x, LikelihoodMaximizer.SubsampleSize),
+            double? logBeta = DataRoot.Find(Equation, x, MarginalSample.Stratified(x, LikelihoodMaximizer.SearchSampleSize),
                 Math.Log(b0) - 0.2, Math.Log(b0) + 0.2, -40, 10, 0.02, 1e-13);
             if (logBeta is null) return new(FromLMoments(s.LMoments), false, "mle", "scale equation has no root; L-moment estimate kept");
             double b = Math.Exp(logBeta.Value), sum = 0;

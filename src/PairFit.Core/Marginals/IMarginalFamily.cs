@@ -38,6 +38,9 @@ public interface IMarginalFamily
 
 /// <summary>
 /// Parameters found by a fitting method. <paramref name="FixedMask"/> marks parameters that are
-/// not smooth likelihood maxima (e.g. a location put at the sample minimum), which get no standard error.
+/// not smooth likelihood maxima (e.g. a location put at the sample minimum), which get no standard
+/// error. <paramref name="StandardErrors"/> is set by fits that already hold the observed information
+/// (from an analytic gradient); otherwise the caller computes it numerically.
 /// </summary>
-public sealed record MarginalEstimate(double[] Parameters, bool Converged, string Method, string? Note = null, bool[]? FixedMask = null);
+public sealed record MarginalEstimate(double[] Parameters, bool Converged, string Method, string? Note = null, bool[]? FixedMask = null,
+    double?[]? StandardErrors = null);

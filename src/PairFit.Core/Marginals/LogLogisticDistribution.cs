@@ -109,7 +109,11 @@ public sealed class LogLogisticDistribution : IMarginalDistribution
             double[] start = frame.Standardise([s.Logs[s.N / 2], s.StandardDeviationLog * Math.Sqrt(3) / Math.PI]);
             var outcome = LikelihoodMaximizer.Maximize(LogisticLogLikelihoodWithGradient, frame.Values, [start], [0.1, 0.1]);
             var q = frame.Unstandardise(outcome.Parameters);   // (location, scale) of ln X
-            return new([Math.Exp(q[0]), 1 / q[1]], outcome.Converged, "mle", outcome.Note);
+            // Delta method from (m, s) of ln X: se(α) = α se(m), se(β) = se(s)/s².
+            var se = LikelihoodMaximizer.StandardErrors(LogisticLogLikelihoodWithGradient, frame.Values, outcome.Parameters);
+            double alpha = Math.Exp(q[0]);
+            double?[] seData = [alpha * se[0] * frame.Scale, se[1] * frame.Scale / (q[1] * q[1])];
+            return new([alpha, 1 / q[1]], outcome.Converged, "mle", outcome.Note, StandardErrors: seData);
         }
 
         public double LogLikelihood(MarginalSample s, ReadOnlySpan<double> p)

@@ -168,6 +168,13 @@ public static class MarginalAnalysis
             else estimate = family.FitMaximumLikelihood(sample);
             if (estimate.Note is not null) notes.Add(estimate.Note);
 
+            if (!estimate.Parameters.All(double.IsFinite))
+                return (new MarginalCandidate
+                {
+                    Family = familyName, Method = estimate.Method, Converged = false,
+                    Note = $"the {(estimate.Method == MarginalOptions.MethodMle ? "maximum-likelihood" : "L-moment")} estimate is undefined for these data"
+                        + (estimate.Note is null ? "" : $" ({estimate.Note})"),
+                }, null);
             IMarginalDistribution distribution;
             try { distribution = family.Create(estimate.Parameters); }
             catch (ArgumentException e)
@@ -183,7 +190,7 @@ public static class MarginalAnalysis
             // from the stratified subsample at large n (StandardErrors explains the scaling).
             var curvatureSample = family.LikelihoodFromSufficientStatistics ? sample : sample.Subsample;
             double?[] se = estimate.Method == MarginalOptions.MethodMle && finite
-                ? StandardErrors.FromObservedInformation(p => family.LogLikelihood(curvatureSample, p), estimate.Parameters, estimate.FixedMask,
+                ? estimate.StandardErrors ?? StandardErrors.FromObservedInformation(p => family.LogLikelihood(curvatureSample, p), estimate.Parameters, estimate.FixedMask,
                     (double)sample.N / curvatureSample.N)
                 : new double?[k];
             if (estimate.Method != MarginalOptions.MethodMle) notes.Add("no standard errors for L-moment estimates");

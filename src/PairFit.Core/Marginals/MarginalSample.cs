@@ -1,4 +1,5 @@
 using PairFit.Core.Common;
+using PairFit.Core.Dependence;
 
 namespace PairFit.Core.Marginals;
 
@@ -16,11 +17,13 @@ public sealed class MarginalSample
 
     public MarginalSample(ReadOnlySpan<double> values)
     {
-        var sorted = values.ToArray();
-        Array.Sort(sorted);
+        if (values.Length == 0) throw new ArgumentException("empty sample", nameof(values));
+        // Radix sort through order-preserving keys: several times faster than Array.Sort at 1e6 values.
+        RadixSort.Order(values, "value", out var keys);
+        var sorted = new double[keys.Length];
+        for (int i = 0; i < sorted.Length; i++) sorted[i] = RadixSort.Value(keys[i]);
         Values = sorted;
         N = sorted.Length;
-        if (N == 0) throw new ArgumentException("empty sample", nameof(values));
         Min = sorted[0];
         Max = sorted[^1];
         // Scale by the largest magnitude so that sums of squares neither overflow (1e300) nor

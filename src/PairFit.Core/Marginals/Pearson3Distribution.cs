@@ -147,7 +147,7 @@ public sealed class Pearson3Distribution : IMarginalDistribution
         var y = new double[n];
         for (int i = 0; i < n; i++) y[i] = mirrored ? (c - sorted[n - 1 - i]) / d : (sorted[i] - c) / d;
         double yMin = y[0];
-        double[] sub = MarginalSample.Stratified(y, LikelihoodMaximizer.SubsampleSize);
+        double[] sub = MarginalSample.Stratified(y, LikelihoodMaximizer.SearchSampleSize);
 
         // Threshold a = yMin − e^r. Profile (value, derivative in r) on a given set of values.
         (double Value, double Slope, double K, double Theta) Profile(double[] v, double r)

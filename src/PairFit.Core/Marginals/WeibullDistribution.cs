@@ -83,7 +83,7 @@ public sealed class WeibullDistribution : IMarginalDistribution
             }
             // Start from the log-moment relation sd(ln X) = π / (k √6) of the Weibull law.
             double k0 = Math.PI / (Math.Sqrt(6) * s.StandardDeviationLog);
-            double? logK = DataRoot.Find(ProfileEquation, lx, MarginalSample.Stratified(lx, LikelihoodMaximizer.SubsampleSize),
+            double? logK = DataRoot.Find(ProfileEquation, lx, MarginalSample.Stratified(lx, LikelihoodMaximizer.SearchSampleSize),
                 Math.Log(k0) - 0.2, Math.Log(k0) + 0.2, -30, 30, 0.02, 1e-13);
             if (logK is null) return new([1.0, s.Mean], false, "mle", "shape equation has no root");
             double k = Math.Exp(logK.Value);

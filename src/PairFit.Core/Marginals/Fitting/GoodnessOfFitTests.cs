@@ -19,28 +19,29 @@ public static class GoodnessOfFitTests
         int n = sorted.Length;
         double ks = 0, ad = 0, cvm = 1.0 / (12.0 * n);
         var f = FittedCdf(d, sorted);
-        var logF = new double[n];
-        var logS = new double[n];
-        for (int i = 0; i < n; i++)
+        // 1 − F for the values above the median where F was evaluated exactly, from the survival
+        // function so that ln(1 − F) keeps its precision (interpolated interior values are far from 0 and 1).
+        int exactFrom = n <= ExactUpTo ? 0 : n - TailCount;
+        var upper = new double[n - exactFrom];
+        for (int i = exactFrom; i < n; i++)
         {
-            // Where F was evaluated exactly and exceeds 1/2, take 1 − F from the survival function so
-            // that ln(1 − F) keeps its precision (interpolated interior values are far from 0 and 1).
-            double fi = f[i], si = 1.0 - fi;
-            if (fi > 0.5 && (n <= ExactUpTo || i >= n - TailCount))
+            if (f[i] > 0.5)
             {
-                si = d.Survival(sorted[i]);
-                f[i] = fi = 1.0 - si;
+                double si = d.Survival(sorted[i]);
+                upper[i - exactFrom] = si;
+                f[i] = 1.0 - si;
             }
-            logF[i] = Math.Log(Math.Max(fi, double.Epsilon));
-            logS[i] = Math.Log(Math.Max(si, double.Epsilon));
+            else upper[i - exactFrom] = 1.0 - f[i];
         }
         for (int i = 0; i < n; i++)
         {
             double fi = f[i];
+            int j = n - 1 - i;
+            double sj = j >= exactFrom ? upper[j - exactFrom] : 1.0 - f[j];
             // KS: D = max_i max(i/n − F_i, F_i − (i−1)/n) (1-based i).
             ks = Math.Max(ks, Math.Max((i + 1.0) / n - fi, fi - (double)i / n));
             // AD: A² = −n − (1/n) Σ (2i−1)[ln F_i + ln(1 − F_(n+1−i))]  (Anderson and Darling 1954).
-            ad += (2.0 * i + 1.0) * (logF[i] + logS[n - 1 - i]);
+            ad += (2.0 * i + 1.0) * (Math.Log(Math.Max(fi, double.Epsilon)) + Math.Log(Math.Max(sj, double.Epsilon)));
             // CvM: W² = 1/(12n) + Σ (F_i − (2i−1)/(2n))².
             double c = fi - (2.0 * i + 1.0) / (2.0 * n);
             cvm += c * c;
@@ -74,10 +75,10 @@ public static class GoodnessOfFitTests
     private static double? Finite(double v) => double.IsFinite(v) ? v : null;
 
     /// <summary>Up to this n every F(x_i) is evaluated exactly.</summary>
-    internal const int ExactUpTo = 20_000;
+    internal const int ExactUpTo = 4_000;
 
     /// <summary>Order statistics at each end that are always evaluated exactly.</summary>
-    internal const int TailCount = 2_000;
+    internal const int TailCount = 500;
 
     /// <summary>Knot spacing (in order statistics) of the interior interpolation.</summary>
     private const int KnotSpacing = 32;
@@ -88,7 +89,7 @@ public static class GoodnessOfFitTests
     /// interpolated between exact knots every <see cref="KnotSpacing"/> order statistics by the cubic
     /// Hermite polynomial that matches F and the density f at both knots. Its error is at most
     /// h⁴ max|f‴|/384 over a knot interval of width h (e.g. Burden and Faires 2011, Theorem 3.9);
-    /// with knots 32 order statistics apart in samples above 20,000 values this is below 1e-12, while
+    /// with knots 32 order statistics apart in samples above 4,000 values this is below about 1e-10, while
     /// the CDF, often an incomplete gamma function, is evaluated 32 times less often.
     /// </summary>
     internal static double[] FittedCdf(IMarginalDistribution d, ReadOnlySpan<double> sorted)

@@ -14,7 +14,7 @@ public delegate double LogLikelihoodWithGradient(ReadOnlySpan<double> values, do
 /// one-dimensional profile: GEV, log-logistic). Newton's method on the full data from a moment or
 /// L-moment start, with step halving so the likelihood never decreases. The Hessian is the forward
 /// difference of the analytic gradient on a stratified subsample of at most
-/// <see cref="CurvatureSampleSize"/> order statistics, scaled by n/m: the log-likelihood Hessian is a
+/// <see cref="SearchSampleSize"/> order statistics, scaled by n/m: the log-likelihood Hessian is a
 /// sum over observations, so the subsample's curvature estimates the full one to about 1/√m, and
 /// the iteration converges linearly at about that rate while each step costs one pass over the data.
 /// When the Hessian is not negative definite (start far from the optimum), Nelder–Mead on the
@@ -22,16 +22,20 @@ public delegate double LogLikelihoodWithGradient(ReadOnlySpan<double> values, do
 /// </summary>
 public static class LikelihoodMaximizer
 {
-    public const int CurvatureSampleSize = 4000;
+    /// <summary>
+    /// Size of the stratified subsample for cheap searches (Newton curvature here, profile grids and
+    /// first-stage roots in the profile fits) before the full data refine the answer.
+    /// </summary>
+    public const int SearchSampleSize = 4000;
 
-    /// <summary>Subsample size used elsewhere for cheap searches (profile grids) before full-data refinement.</summary>
+    /// <summary>Subsample size for standard errors at large n (their curvature to ~1/√20000 ≈ 0.7 %).</summary>
     public const int SubsampleSize = 20_000;
 
     public sealed record Outcome(double[] Parameters, double LogLikelihood, bool Converged, string? Note);
 
     public static Outcome Maximize(LogLikelihoodWithGradient f, double[] values, IReadOnlyList<double[]> starts, double[] simplexSteps)
     {
-        double[] sub = MarginalSample.Stratified(values, CurvatureSampleSize);
+        double[] sub = MarginalSample.Stratified(values, SearchSampleSize);
         double weight = (double)values.Length / sub.Length;
         Outcome? best = null;
         foreach (var start in starts)
@@ -89,6 +93,18 @@ public static class LikelihoodMaximizer
             if (!improved) return new(x, fx, decrement < 1e-6, decrement < 1e-6 ? null : "line search failed");
         }
         return new(x, fx, false, "Newton iteration limit reached");
+    }
+
+    /// <summary>
+    /// Standard errors from the observed information at <paramref name="estimate"/>: the Hessian as
+    /// forward differences of the analytic gradient (on a stratified subsample of at most
+    /// <see cref="SubsampleSize"/> values, scaled by n/m, at large n), inverted.
+    /// </summary>
+    public static double?[] StandardErrors(LogLikelihoodWithGradient f, double[] values, double[] estimate)
+    {
+        var sub = MarginalSample.Stratified(values, SubsampleSize);
+        var h = SubsampleHessian(f, sub, estimate, (double)values.Length / sub.Length);
+        return Fitting.StandardErrors.FromInformation(h is null ? null : -h, estimate.Length);
     }
 
     /// <summary>Forward differences of the analytic gradient on the subsample, symmetrised, times n/m.</summary>

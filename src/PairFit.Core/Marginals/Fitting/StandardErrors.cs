@@ -33,15 +33,23 @@ public static class StandardErrors
         double[,] h;
         try { h = new NumericalHessian().Evaluate(Reduced, x0); }
         catch (Exception) { return result; }
-        var info = -weight * Matrix<double>.Build.DenseOfArray(h);
-        if (!info.Enumerate().All(double.IsFinite)) return result;
+        var reduced = FromInformation(-weight * Matrix<double>.Build.DenseOfArray(h), free.Count);
+        for (int k = 0; k < free.Count; k++) result[free[k]] = reduced[k];
+        return result;
+    }
+
+    /// <summary>√diag(I⁻¹) for an information matrix I; null entries where I is singular or not positive.</summary>
+    public static double?[] FromInformation(Matrix<double>? info, int p)
+    {
+        var result = new double?[p];
+        if (info is null || !info.Enumerate().All(double.IsFinite)) return result;
         Matrix<double> cov;
         try { cov = info.Inverse(); }
         catch (Exception) { return result; }
-        for (int k = 0; k < free.Count; k++)
+        for (int k = 0; k < p; k++)
         {
             double v = cov[k, k];
-            result[free[k]] = v > 0 && double.IsFinite(v) ? Math.Sqrt(v) : null;
+            result[k] = v > 0 && double.IsFinite(v) ? Math.Sqrt(v) : null;
         }
         return result;
     }
