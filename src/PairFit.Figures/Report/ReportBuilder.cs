@@ -172,6 +172,9 @@ public static class ReportBuilder
         }
     }
 
+    /// <summary>Lists longer than this are not spelled out in a cell.</summary>
+    private const int MaxListInCell = 12;
+
     /// <summary>Text values longer than this go to the table's numbered notes instead of a cell.</summary>
     private const int LongText = 48;
 
@@ -253,6 +256,9 @@ public static class ReportBuilder
             case JsonValue v when v.TryGetValue(out double d): return Num(d);
             case JsonValue v when v.TryGetValue(out bool b): return b ? "yes" : "no";
             case JsonValue v when v.TryGetValue(out string? s): return s ?? "";
+            // long numeric series (density grids) belong to the results file and the figure CSVs, not to a table cell
+            case JsonArray a when a.Count > MaxListInCell: return $"({a.Count} values; see results.json)";
+            case JsonArray a when a.All(x => x is JsonValue v && v.TryGetValue(out string? _)): return string.Join(" ", a.Select(x => Cell(x!)));
             case JsonArray a: return "[" + string.Join(", ", a.Select(x => x is null ? "–" : Cell(x))) + "]";
             case JsonObject o when IsNameToNumberMap(o): return string.Join(", ", o.Select(kv => $"{kv.Key} = {(kv.Value is null ? "–" : Cell(kv.Value))}"));
             case JsonObject o: return string.Join(", ", o.Select(kv => $"{Words(kv.Key)} = {(kv.Value is null ? "–" : Cell(kv.Value))}"));
