@@ -24,12 +24,18 @@ public static class FigureSet
     /// <summary>Fitted copula candidates drawn in the tail figure (best AIC first).</summary>
     public const int TailFigureCopulas = 3;
 
+    /// <summary>
+    /// Renders every figure the results allow into outDir/figures, in each of <see cref="FigureOptions.Formats"/>
+    /// plus a CSV of its data; returns the files written (paths relative to outDir), figure by figure.
+    /// An empty format list writes nothing.
+    /// </summary>
     public static IReadOnlyList<FigureFile> RenderAll(PairedSample sample, AnalysisResults results, JointModel? model, string outDir, FigureOptions options, IProgress<string>? progress = null)
     {
         ArgumentNullException.ThrowIfNull(sample);
         ArgumentNullException.ThrowIfNull(results);
         ArgumentNullException.ThrowIfNull(options);
         Validate(options);
+        if (options.Formats.Count == 0) return []; // "--figures none": no figure files, not even their CSVs
         var figures = BuildAll(sample, results, model, options);
         // figures are independent (own models, own render contexts): export them in parallel,
         // collected by index so the list keeps the figures' order

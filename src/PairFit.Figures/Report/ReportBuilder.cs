@@ -91,8 +91,8 @@ public static class ReportBuilder
             foreach (string id in order)
             {
                 var list = byId[id];
-                var shown = list.Find(f => f.Format == "png") ?? list.Find(f => f.Format == "svg");
-                if (shown is null) continue;
+                // PNG shown where written, else SVG; with PDF only the figure is listed with its links
+                var shown = list.Find(f => f.Format == "png") ?? list.Find(f => f.Format == "svg") ?? list[0];
                 doc.Figure(shown, list);
             }
         }
