@@ -75,8 +75,10 @@ public sealed class GumbelCopula : ICopula
 
     /// <summary>
     /// No closed form. With z = A^(1/θ) ≥ x, log h = −z + x + (θ−1)(log x − log z), so h(v|u) = w
-    /// is the root of g(s) = e^s + (θ−1)s − (x + (θ−1) log x − log w) in s = log z, increasing
-    /// and convex; safeguarded Newton on [log x, ∞) then y = z (1 − (x/z)^θ)^(1/θ), v = e^(−y).
+    /// is the root of g(s) = e^s + (θ−1)s − (x + (θ−1) log x − log w) in s = log z. g is increasing
+    /// and convex, so Newton's method never overshoots to the left after its first step and
+    /// converges monotonically (a bracketed search is kept as a fallback). Then
+    /// y = z (1 − (x/z)^θ)^(1/θ) and v = e^(−y).
     /// </summary>
     public double InverseConditionalCdf(double u, double w)
     {
@@ -84,10 +86,23 @@ public sealed class GumbelCopula : ICopula
         if (w >= 1) return 1.0;
         double x = -Math.Log(MathExtras.ClampOpen(u)), logX = Math.Log(x);
         var g = new LogZEquation(_thetaMinusOne, x + _thetaMinusOne * logX - Math.Log(w));
-        double lo = logX, hi = logX + 1;
-        while (g.Evaluate(hi, out _) < 0) hi = lo + 2 * (hi - lo);
-        // Start from the root of e^s = target, usually close (and inside the bracket after clamping).
-        double s = MonotoneRoot.Solve(ref g, lo, hi, Math.Log(Math.Max(g.Target, 1e-300)));
+        // The root of e^s = target is a good start when the exponential dominates; never below log x.
+        double s = Math.Max(logX, Math.Log(Math.Max(g.Target, 1e-300)));
+        bool converged = false;
+        for (int i = 0; i < 60 && !converged; i++)
+        {
+            double step = g.Evaluate(s, out double slope) / slope;
+            if (!double.IsFinite(step)) break;
+            s = Math.Max(s - step, logX);
+            // Quadratic convergence: a step below 1e−9 leaves an error of order 1e−18.
+            converged = Math.Abs(step) <= 1e-9 * (1 + Math.Abs(s));
+        }
+        if (!converged)
+        {
+            double lo = logX, hi = logX + 1;
+            while (g.Evaluate(hi, out _) < 0) hi = lo + 2 * (hi - lo);
+            s = MonotoneRoot.Solve(ref g, lo, hi, 0.5 * (lo + hi));
+        }
         double logY = s + MathExtras.Log1MExp(Theta * (s - logX)) * _inverseTheta;
         return Math.Exp(-Math.Exp(logY));
     }

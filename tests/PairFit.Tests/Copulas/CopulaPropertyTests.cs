@@ -18,7 +18,7 @@ public class CopulaPropertyTests
     {
         var c = CopulaTestCases.Create(family, rotation, parameters);
         double mass = UnitSquareQuadrature.Integrate((u, v) => c.Density(u, v));
-        // Left-out edge strips hold ≤ 4e−10; 10-node Gauss–Legendre per graded panel integrates the
+        // Left-out edge strips hold ≤ 4e−10; 7-node Gauss–Legendre per graded panel integrates the
         // smooth part to ~1e−12, and the r^(−α) corner singularities of the tail-dependent families
         // leave errors of order 1e−7 on the innermost panels; 1e−6 covers both with margin.
         Assert.InRange(mass, 1 - 1e-6, 1 + 1e-6);

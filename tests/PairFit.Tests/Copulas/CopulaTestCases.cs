@@ -80,7 +80,7 @@ public static class UnitSquareQuadrature
         0.7, 0.85, 0.94, 0.98, 0.995, 0.999, 1 - 1e-4, 1 - 1e-5, 1 - 1e-6, 1 - 1e-8, 1 - Edge,
     ];
 
-    private static readonly (double[] Nodes, double[] Weights) Grid = BuildGrid(10);
+    private static readonly (double[] Nodes, double[] Weights) Grid = BuildGrid(7);
 
     private static (double[], double[]) BuildGrid(int order)
     {
