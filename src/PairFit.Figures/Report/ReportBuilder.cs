@@ -51,8 +51,9 @@ public static class ReportBuilder
         doc.Table(new ReportTable($"Correlation of {input.XColumn} and {input.YColumn} (n = {dep.N})",
             ["measure", "estimate", "p-value", "95 % interval", "note"],
             [Corr("Pearson r", dep.Pearson), Corr("Spearman rho", dep.Spearman), Corr("Kendall tau-b", dep.Kendall)], IsFitTable: true));
-        doc.Table(new ReportTable("Empirical tail dependence", ["lower", "upper", "estimator", "threshold"],
-            [[Num(dep.Tail.Lower), Num(dep.Tail.Upper), dep.Tail.Estimator ?? "–", Num(dep.Tail.Threshold)]]));
+        doc.Table(new ReportTable("Empirical tail dependence", ["lower", "upper", "estimator", "threshold", "pairs in the tail", "note"],
+            [[Num(dep.Tail.Lower), Num(dep.Tail.Upper), dep.Tail.Estimator ?? "–", Num(dep.Tail.Threshold),
+              dep.Tail.K is { } tailPairs ? Int(tailPairs) : "–", dep.Tail.Note ?? ""]]));
 
         var names = new Dictionary<string, string> { ["x"] = $"x: {input.XColumn}", ["y"] = $"y: {input.YColumn}" };
         Section(doc, "Marginal distributions", results.Marginals, fitTables: true, names: names);
