@@ -30,7 +30,7 @@ public sealed record JointOptions
 /// T_AND = μ / P(X &gt; a, Y &gt; b), T_OR = μ / P(X &gt; a or Y &gt; b) = μ / (1 − C(u, v)),
 /// T_Kendall = μ / (1 − K_C(t)) with t = C(u, v). Since P(AND) ≤ 1 − K_C(t) ≤ P(OR), T_AND ≥ T_K ≥ T_OR.
 /// For a target T, the design isoline is the level curve of the chosen definition, and the most
-/// likely design event is its point of largest joint density (ibid., section 4).
+/// likely design event is its point of largest joint density (ibid.).
 /// </summary>
 public static class JointAnalysis
 {

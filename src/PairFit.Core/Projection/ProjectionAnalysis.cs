@@ -214,7 +214,7 @@ public static class ProjectionAnalysis
         {
             double v = Quantile(a);
             valueAtRisk.Add(new RiskValue { Level = a, Value = v });
-            // TVaR_α = VaR_α + E[(Q − VaR_α)⁺]/(1 − α) for a continuous law (Acerbi and Tasche 2002, eq. 3.3).
+            // TVaR_α = VaR_α + E[(Q − VaR_α)⁺]/(1 − α) for a continuous law (Acerbi and Tasche 2002).
             tail.Add(new RiskValue { Level = a, Value = exist.TailMean ? v + HalfLineIntegral(r => SCoarse(v + r), scale) / (1 - a) : null });
         }
 
@@ -223,16 +223,11 @@ public static class ProjectionAnalysis
         {
             double lo = Quantile(GridTail), hi = Quantile(1 - GridTail);
             if (!(hi > lo)) { lo -= 1; hi += 1; }
-            int g = o.GridPoints;
-            double step = (hi - lo) / (g - 1);
-            var values = new double[g];
-            var cdf = new double[g];
-            var density = new double[g];
-            for (int i = 0; i < g; i++)
+            var (values, cdf, density) = qd.Grid(lo, hi, o.GridPoints);
+            for (int i = 0; i < values.Length; i++)
             {
-                values[i] = lo + i * step;
-                cdf[i] = Math.Min(1.0, qd.Cdf(values[i], coarse: true) / m);
-                density[i] = qd.Density(values[i], 0.5 * step, coarse: true) / m;
+                cdf[i] = Math.Min(1.0, cdf[i] / m);
+                density[i] /= m;
             }
             grid = new ProjectionGrid
             {

@@ -27,7 +27,7 @@ public static class SampleStatistics
     /// Inverse of the empirical CDF, x_(⌈np⌉) (Hyndman and Fan 1996, definition 1), with the
     /// distribution-free 95 % interval [x_(j), x_(k)] for the p-quantile from the binomial law of
     /// the number of draws below it, ranks by the normal approximation j, k = np ∓ 1.96 √(np(1−p))
-    /// (Conover 1999, section 3.2; David and Nagaraja 2003, section 7.1).
+    /// (Conover 1999, ch. 3; David and Nagaraja 2003, ch. 7; chapter numbers from memory).
     /// </summary>
     public static QuantileValue OrderStatisticQuantile(double[] sorted, double p, bool withInterval)
     {
@@ -85,7 +85,7 @@ public static class SampleStatistics
     /// <summary>
     /// Tail value-at-risk of the sample's own distribution, (1/(1−α)) ∫_α^1 F_n⁻¹(p) dp: the mean
     /// of the top n(1−α) values, the boundary value weighted by its fractional share
-    /// (Acerbi and Tasche 2002, Proposition 3.2).
+    /// (Acerbi and Tasche 2002).
     /// </summary>
     public static double TailMean(double[] sorted, double level)
     {
@@ -103,7 +103,7 @@ public static class SampleStatistics
     /// <summary>
     /// Gaussian kernel density on an even grid with Silverman's rule-of-thumb bandwidth
     /// h = 0.9 min(sd, IQR/1.34) n^(−1/5) (Silverman 1986, eq. 3.31), computed by linear binning
-    /// onto the grid and a discrete convolution (Wand and Jones 1995, appendix D), which costs
+    /// onto the grid and a discrete convolution (Wand and Jones 1995, binned kernel estimators; from memory), which costs
     /// O(n + G·K) instead of O(n·G).
     /// </summary>
     public static (double[] Density, double Bandwidth) KernelDensity(double[] sorted, double[] grid, double sd)
@@ -146,7 +146,7 @@ public static class SampleStatistics
     /// Tail index estimate from two upper (or lower) quantiles at exceedance probabilities
     /// p1 &gt; p2: α ≈ ln(p1/p2) / ln(d2/d1), d the distance from the median. For a law with
     /// P(|Q| &gt; t) ~ t^(−α) this tends to α; light tails give large values. Moments of order
-    /// ≥ α do not exist (a regular-variation argument; Embrechts, Klüppelberg and Mikosch 1997, §A3).
+    /// ≥ α do not exist (a regular-variation argument; Embrechts, Klüppelberg and Mikosch 1997; from memory).
     /// </summary>
     public static double TailIndex(double p1, double p2, double d1, double d2)
     {

@@ -4,7 +4,7 @@ namespace PairFit.Tests.Cli;
 
 public class CliShellTests
 {
-    private static (int Code, string Out, string Err) Run(params string[] args)
+    internal static (int Code, string Out, string Err) Run(params string[] args)
     {
         var o = new StringWriter();
         var e = new StringWriter();

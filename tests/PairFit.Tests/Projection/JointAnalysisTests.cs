@@ -41,7 +41,7 @@ public class JointAnalysisTests
     [InlineData(8.0, 0.6)]
     public void KendallDistributionMatchesTheArchimedeanClosedForm(double theta, double t)
     {
-        // K(t) = t − φ(t)/φ'(t) (Genest and Rivest 1993, Proposition 1.1; Nelsen 2006, Theorem 4.3.4);
+        // K(t) = t − φ(t)/φ'(t) (Genest and Rivest 1993; Nelsen 2006, Theorem 4.3.4, from memory);
         // Clayton φ(t) = (t^−θ − 1)/θ gives K(t) = t + (t − t^(θ+1))/θ.
         double exact = t + (t - Math.Pow(t, theta + 1)) / theta;
         Assert.Equal(exact, KendallDistribution.Cdf(new ClaytonCopula(theta), t), 8);
@@ -81,7 +81,7 @@ public class JointAnalysisTests
     [MemberData(nameof(Families))]
     public void AndKendallOrReturnPeriodsAreOrdered(string family, int rotation)
     {
-        // P(AND) ≤ 1 − K_C(t) ≤ P(OR), so T_AND ≥ T_Kendall ≥ T_OR (Salvadori, De Michele and Durante 2011, section 3).
+        // P(AND) ≤ 1 − K_C(t) ≤ P(OR), so T_AND ≥ T_Kendall ≥ T_OR (Salvadori, De Michele and Durante 2011).
         var f = CopulaRegistry.Find(family);
         var model = new JointModel(new LogNormalDistribution(1, 0.5), new ExponentialDistribution(0.2), RotatedCopula.Rotate(f.Create(f.StartFromTau(0.5)!), rotation));
         foreach (var (pu, pv) in new[] { (0.9, 0.9), (0.99, 0.5), (0.5, 0.995), (0.3, 0.4) })

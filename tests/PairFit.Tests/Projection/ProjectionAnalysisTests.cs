@@ -14,8 +14,8 @@ public class ProjectionAnalysisTests
     [Fact]
     public void NormalSumUnderGaussianCopulaGivesNormalMomentsQuantilesAndRiskMeasures()
     {
-        // X + Y ~ N(0.5, 4 + 0.49 + 2·0.6·2·0.7) (Mood, Graybill and Boes 1974, ch. IV §5);
-        // TVaR_α of N(μ, σ²) = μ + σ φ(z_α)/(1 − α) (McNeil, Frey and Embrechts 2015, Example 2.14).
+        // X + Y ~ N(0.5, 4 + 0.49 + 2·0.6·2·0.7) (standard bivariate-normal result; from memory);
+        // TVaR_α of N(μ, σ²) = μ + σ φ(z_α)/(1 − α) (McNeil, Frey and Embrechts 2015, expected shortfall of the normal law; from memory).
         var model = new JointModel(new NormalDistribution(1, 2), new NormalDistribution(-0.5, 0.7), new GaussianCopula(0.6));
         var r = ProjectionAnalysis.Project(model, "x + y", "a", "b", null, new ProjectionOptions
         {
@@ -45,8 +45,8 @@ public class ProjectionAnalysisTests
     [Fact]
     public void ComonotonicQuantilesAreSumsOfQuantiles()
     {
-        // Comonotonic additivity of quantiles and TVaR (Dhaene, Denuit, Goovaerts, Kaas and Vyncke 2002, Theorem 5;
-        // Dhaene et al. 2006, section 4.3). TVaR of Exp(λ): VaR + 1/λ; of LN(μ, σ): e^(μ+σ²/2) Φ(σ − z_α)/(1 − α).
+        // Comonotonic additivity of quantiles and TVaR (Dhaene, Denuit, Goovaerts, Kaas and Vyncke 2002;
+        // Dhaene et al. 2006; from memory). TVaR of Exp(λ): VaR + 1/λ; of LN(μ, σ): e^(μ+σ²/2) Φ(σ − z_α)/(1 − α).
         var model = new JointModel(new ExponentialDistribution(0.5), new LogNormalDistribution(1.0, 0.5), new ClaytonCopula(1.0));
         var r = ProjectionAnalysis.Project(model, "x + y", "a", "b", null, new ProjectionOptions
         {
@@ -85,7 +85,7 @@ public class ProjectionAnalysisTests
     [Fact]
     public void MonteCarloQuantilesCarryIntervalsThatCoverTheTruth()
     {
-        // Hypoexponential sum again (Ross 2014, §5.2.4), quantiles from the exact CDF by bisection.
+        // Hypoexponential sum again (Ross 2014, hypoexponential law), quantiles from the exact CDF by bisection.
         var model = new JointModel(new ExponentialDistribution(1.0), new ExponentialDistribution(2.5), new IndependenceCopula());
         var r = ProjectionAnalysis.Project(model, "x * 1 + max(y, 0) * 1 + 0 * x * y", "a", "b", null, new ProjectionOptions { Seed = 9, MonteCarloDraws = 50_000 });
         Assert.Equal(ProjectionAnalysis.MonteCarlo, r.Method); // y occurs twice: Monte Carlo

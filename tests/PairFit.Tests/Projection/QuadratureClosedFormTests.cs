@@ -26,7 +26,7 @@ public class QuadratureClosedFormTests
     [InlineData(8.0)]
     public void SumOfIndependentExponentialsIsHypoexponential(double q)
     {
-        // Hypoexponential law (Ross 2014, Introduction to Probability Models, 11th ed., §5.2.4):
+        // Hypoexponential law (Ross 2014, Introduction to Probability Models, 11th ed., section on the hypoexponential law; from memory):
         // f(q) = k1 k2/(k1 − k2) (e^(−k2 q) − e^(−k1 q)), F(q) = 1 − (k2 e^(−k1 q) − k1 e^(−k2 q))/(k2 − k1).
         const double k1 = 1.0, k2 = 2.5;
         var model = new JointModel(new ExponentialDistribution(k1), new ExponentialDistribution(k2), new IndependenceCopula());
@@ -41,7 +41,7 @@ public class QuadratureClosedFormTests
     [Fact]
     public void SmallTailProbabilitiesKeepTheirRelativeAccuracy()
     {
-        // Same hypoexponential law far in the tail: S(20) ≈ 3.4e−9 (Ross 2014, §5.2.4).
+        // Same hypoexponential law far in the tail: S(20) ≈ 3.4e−9 (Ross 2014, hypoexponential law).
         var model = new JointModel(new ExponentialDistribution(1.0), new ExponentialDistribution(2.5), new IndependenceCopula());
         double exact = (2.5 * Math.Exp(-20.0) - 1.0 * Math.Exp(-50.0)) / 1.5;
         double s = Quadrature(model, "x + y").Survival(20.0);
@@ -58,7 +58,7 @@ public class QuadratureClosedFormTests
     [InlineData(10.0)]
     public void RatioOfIndependentStandardNormalsIsCauchy(double q)
     {
-        // Standard Cauchy (Johnson, Kotz and Balakrishnan 1994, vol. 1, ch. 16, §1):
+        // Standard Cauchy (Johnson, Kotz and Balakrishnan 1994, vol. 1, ch. 16):
         // F(q) = 1/2 + atan(q)/π, f(q) = 1/(π(1 + q²)). The sign change of x at u = 1/2 is a jump of the preimage.
         var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceCopula());
         var qd = Quadrature(model, "y / x");
@@ -83,7 +83,7 @@ public class QuadratureClosedFormTests
     [InlineData(-0.8)]
     public void SumOfNormalsUnderGaussianCopulaIsNormal(double rho)
     {
-        // X + Y ~ N(μ1 + μ2, σ1² + σ2² + 2ρσ1σ2) for a bivariate normal pair (Mood, Graybill and Boes 1974, ch. IV §5).
+        // X + Y ~ N(μ1 + μ2, σ1² + σ2² + 2ρσ1σ2) for a bivariate normal pair (standard bivariate-normal result; from memory).
         const double m1 = 1, s1 = 2, m2 = -0.5, s2 = 0.7;
         var model = new JointModel(new NormalDistribution(m1, s1), new NormalDistribution(m2, s2), new GaussianCopula(rho));
         var qd = Quadrature(model, "x + y");
@@ -99,7 +99,7 @@ public class QuadratureClosedFormTests
     [Fact]
     public void ProductOfLognormalsUnderGaussianCopulaIsLognormal()
     {
-        // log XY = log X + log Y is normal with variance σ1² + σ2² + 2ρσ1σ2 (Aitchison and Brown 1957, Theorem 2.2),
+        // log XY = log X + log Y is normal with variance σ1² + σ2² + 2ρσ1σ2 (Aitchison and Brown 1957; from memory),
         // the Gaussian copula being invariant under the increasing map log.
         const double m1 = 0.2, s1 = 0.5, m2 = -0.1, s2 = 0.3, rho = -0.4;
         var model = new JointModel(new LogNormalDistribution(m1, s1), new LogNormalDistribution(m2, s2), new GaussianCopula(rho));
@@ -115,7 +115,7 @@ public class QuadratureClosedFormTests
     [Fact]
     public void FlatPiecesOfMaxAreHandled()
     {
-        // P(max(X, Y) ≤ q) = P(X ≤ q, Y ≤ q) = F(q)² for independent standard normals (order statistics, David and Nagaraja 2003, §2.1);
+        // P(max(X, Y) ≤ q) = P(X ≤ q, Y ≤ q) = F(q)² for independent standard normals (distribution of the maximum, David and Nagaraja 2003);
         // its density 2φ(q)Φ(q) comes from the CDF's derivative because max is flat in y for y < x.
         var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceCopula());
         var qd = Quadrature(model, "max(x, y)");
