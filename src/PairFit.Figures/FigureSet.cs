@@ -3,6 +3,7 @@ using PairFit.Core.Copulas;
 using PairFit.Core.Data;
 using PairFit.Core.Marginals;
 using PairFit.Core.Model;
+using PairFit.Core.Projection;
 using PairFit.Core.Results;
 using PairFit.Figures.Plots;
 using PairFit.Figures.Rendering;
@@ -23,12 +24,18 @@ public static class FigureSet
     /// <summary>Fitted copula candidates drawn in the tail figure (best AIC first).</summary>
     public const int TailFigureCopulas = 3;
 
+    /// <summary>
+    /// Renders every figure the results allow into outDir/figures, in each of <see cref="FigureOptions.Formats"/>
+    /// plus a CSV of its data; returns the files written (paths relative to outDir), figure by figure.
+    /// An empty format list writes nothing.
+    /// </summary>
     public static IReadOnlyList<FigureFile> RenderAll(PairedSample sample, AnalysisResults results, JointModel? model, string outDir, FigureOptions options, IProgress<string>? progress = null)
     {
         ArgumentNullException.ThrowIfNull(sample);
         ArgumentNullException.ThrowIfNull(results);
         ArgumentNullException.ThrowIfNull(options);
         Validate(options);
+        if (options.Formats.Count == 0) return []; // "--figures none": no figure files, not even their CSVs
         var figures = BuildAll(sample, results, model, options);
         // figures are independent (own models, own render contexts): export them in parallel,
         // collected by index so the list keeps the figures' order
@@ -66,10 +73,9 @@ public static class FigureSet
         if (model is not null)
         {
             var joint = results.Joint;
-            var periods = ReturnPeriods(joint);
             double mu = joint is { MeanInterarrivalYears: > 0 } j ? j.MeanInterarrivalYears : 1.0;
-            MarkedEvent? design = joint is null ? null : new MarkedEvent($"the design pair ({Labels.Number(joint.XValue)}, {Labels.Number(joint.YValue)})", joint.XValue, joint.YValue);
-            list.Add(ReturnPeriodFigure.Build(sample, model, periods, mu, seed, design));
+            MarkedEvent? pair = joint is null ? null : new MarkedEvent($"the design pair ({Labels.Number(joint.XValue)}, {Labels.Number(joint.YValue)})", joint.XValue, joint.YValue);
+            list.Add(ReturnPeriodFigure.Build(sample, model, Designs(joint, model, mu), mu, pair));
             list.Add(SimulationFigure.Build(sample, model, seed));
         }
         return list;
@@ -80,15 +86,24 @@ public static class FigureSet
         => results.Settings is { } s && s.TryGetValue("seed", out var text) && int.TryParse(text, System.Globalization.NumberStyles.Integer, System.Globalization.CultureInfo.InvariantCulture, out int seed)
             ? seed : options.Seed;
 
-    private static double[] ReturnPeriods(JointSection? joint)
+    /// <summary>Points per isoline computed for the figure when the results do not hold that return period.</summary>
+    public const int IsolinePoints = 120;
+
+    /// <summary>
+    /// The design isolines of the results, topped up with the default return periods (computed by
+    /// the joint analysis) to at most four periods.
+    /// </summary>
+    private static List<DesignEvent> Designs(JointSection? joint, JointModel model, double mu)
     {
-        if (joint?.Designs is { Count: > 0 } designs)
-        {
-            var set = new SortedSet<double>();
-            foreach (var d in designs) if (d.ReturnPeriod > 0) set.Add(d.ReturnPeriod);
-            if (set.Count > 0) return [.. set];
-        }
-        return DefaultReturnPeriods;
+        var designs = new List<DesignEvent>();
+        var periods = new SortedSet<double>();
+        if (joint?.Designs is { } reported)
+            foreach (var d in reported)
+                if (d.ReturnPeriod > 0) { designs.Add(d); periods.Add(d.ReturnPeriod); }
+        foreach (double t in DefaultReturnPeriods)
+            if (periods.Count < 4 && periods.Add(t))
+                designs.AddRange(JointAnalysis.Designs(model, mu, t, IsolinePoints));
+        return designs;
     }
 
     /// <summary>The selected marginal first, then the next best fitted candidates (rebuilt from their records).</summary>

@@ -51,7 +51,7 @@ public static class CopulaFigure
                     dens[i, j] = copula.Density(grid[i], grid[j]);
                     fig.Data.Add("a", "fitted density", grid[i], grid[j], dens[i, j]);
                 }
-            a.Series.Add(Contours(grid, dens, DensityLevels, $"{label} density", Palette.Blue, LineStyle.Solid));
+            AddContours(a, grid, dens, DensityLevels, $"{label} density", Palette.Blue, LineStyle.Solid);
         }
         PlotStyle.LegendBelow(a);
 
@@ -60,7 +60,7 @@ public static class CopulaFigure
         b.Axes.Add(PlotStyle.Linear(AxisPosition.Left, vName, 0, 1));
         double[] cgrid = FigureMath.Grid(0, 1, 51);
         var empirical = FigureMath.EmpiricalCopula(u, v, cgrid);
-        b.Series.Add(Contours(cgrid, empirical, CdfLevels, "empirical", Palette.Data, LineStyle.Solid));
+        AddContours(b, cgrid, empirical, CdfLevels, "empirical", Palette.Data, LineStyle.Solid);
         for (int i = 0; i < cgrid.Length; i++)
             for (int j = 0; j < cgrid.Length; j++)
                 fig.Data.Add("b", "empirical copula", cgrid[i], cgrid[j], empirical[i, j]);
@@ -73,7 +73,7 @@ public static class CopulaFigure
                     fitted[i, j] = copula.Cdf(cgrid[i], cgrid[j]);
                     fig.Data.Add("b", "fitted copula", cgrid[i], cgrid[j], fitted[i, j]);
                 }
-            b.Series.Add(Contours(cgrid, fitted, CdfLevels, label, Palette.Vermillion, LineStyle.Dash));
+            AddContours(b, cgrid, fitted, CdfLevels, label, Palette.Vermillion, LineStyle.Dash);
         }
         PlotStyle.LegendBelow(b);
 
@@ -82,10 +82,19 @@ public static class CopulaFigure
         return fig;
     }
 
-    private static ContourSeries Contours(double[] grid, double[,] values, double[] levels, string title, OxyColor colour, LineStyle style)
+    /// <summary>
+    /// Contour lines, plus an empty line series that carries the legend entry: a contour series
+    /// draws no line sample in the legend, so its colour and dash would go unexplained.
+    /// </summary>
+    private static void AddContours(PlotModel m, double[] grid, double[,] values, double[] levels, string title, OxyColor colour, LineStyle style)
+    {
+        m.Series.Add(new LineSeries { Title = title, Color = colour, LineStyle = style, StrokeThickness = 1.2 });
+        m.Series.Add(Contours(grid, values, levels, colour, style));
+    }
+
+    private static ContourSeries Contours(double[] grid, double[,] values, double[] levels, OxyColor colour, LineStyle style)
         => new()
         {
-            Title = title,
             ColumnCoordinates = grid,
             RowCoordinates = grid,
             Data = values,
@@ -94,6 +103,6 @@ public static class CopulaFigure
             LineStyle = style,
             StrokeThickness = 1.2,
             LabelFormatString = null,
-            RenderInLegend = true,
+            RenderInLegend = false,
         };
 }

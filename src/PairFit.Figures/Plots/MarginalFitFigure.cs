@@ -51,17 +51,17 @@ public static class MarginalFitFigure
         }
         PlotStyle.LegendBelow(a);
 
-        // (b) QQ plot with the order-statistic band, evaluated at ≤ 200 ranks to keep it cheap.
+        // (b) QQ plot with the order-statistic band, evaluated at ≤ 230 ranks to keep it cheap.
         var dist = selected.Distribution;
         var theo = new double[n];
         for (int i = 0; i < n; i++) theo[i] = dist.Quantile((i + 1.0) / (n + 1));
-        int step = Math.Max(1, n / 200);
+        // the band changes fastest in the tails: every rank among the 40 smallest and largest, every step-th between
+        int step = Math.Max(1, n / 150);
         var bandX = new List<double>();
         var bandLo = new List<double>();
         var bandHi = new List<double>();
-        for (int i = 0; i < n; i += step)
-            AddBand(i);
-        if ((n - 1) % step != 0) AddBand(n - 1);
+        for (int i = 0; i < n; i++)
+            if (i < 40 || i >= n - 40 || i % step == 0) AddBand(i);
         void AddBand(int i)
         {
             var (bl, bh) = FigureMath.OrderStatisticBand(dist, n, i + 1, 0.95);

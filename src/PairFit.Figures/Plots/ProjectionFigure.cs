@@ -29,7 +29,9 @@ public static class ProjectionFigure
             aspect: 0.5);
 
         var a = PlotStyle.NewPanel("(a) density");
-        a.Axes.Add(PlotStyle.Linear(AxisPosition.Bottom, "Q = " + projection.Expression));
+        // a long expression would be cut at the panel edge; it is spelled out in the caption anyway
+        string qTitle = projection.Expression.Length <= 28 ? "Q = " + projection.Expression : "Q";
+        a.Axes.Add(PlotStyle.Linear(AxisPosition.Bottom, qTitle));
         a.Axes.Add(PlotStyle.Linear(AxisPosition.Left, "density", 0));
         a.Axes[1].MaximumPadding = 0.08;
         if (observed is { Length: > 1 })

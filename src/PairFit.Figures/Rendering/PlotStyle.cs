@@ -94,20 +94,7 @@ public static class PlotStyle
             LegendBackground = OxyColors.Undefined,
             LegendPadding = 2,
             LegendItemSpacing = 10,
-            LegendMargin = 4,
-        });
-
-    /// <summary>A legend to the right of the plot area, entries stacked.</summary>
-    public static void LegendRight(PlotModel m)
-        => m.Legends.Add(new Legend
-        {
-            LegendPlacement = LegendPlacement.Outside,
-            LegendPosition = LegendPosition.RightTop,
-            LegendOrientation = LegendOrientation.Vertical,
-            LegendFont = Font,
-            LegendFontSize = FontSize * 0.9,
-            LegendBorderThickness = 0,
-            LegendPadding = 2,
+            LegendSymbolLength = 30, // long enough to show each dash pattern (grey-scale prints)
             LegendMargin = 4,
         });
 }

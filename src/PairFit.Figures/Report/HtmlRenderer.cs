@@ -82,7 +82,7 @@ public static class HtmlRenderer
 
     private static void Figure(StringBuilder sb, FigureBlock f, Func<FigureFile, byte[]?> readFigure)
     {
-        byte[]? bytes = readFigure(f.Shown);
+        byte[]? bytes = f.Shown.Format is "png" or "svg" ? readFigure(f.Shown) : null;
         sb.Append("<figure id=\"fig-").Append(E(f.Shown.Id)).Append("\">\n");
         if (bytes is not null)
         {

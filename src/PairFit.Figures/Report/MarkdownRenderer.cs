@@ -22,7 +22,8 @@ public static class MarkdownRenderer
                     Table(sb, t.Table);
                     break;
                 case FigureBlock f:
-                    sb.Append("![").Append(Escape(f.Shown.Title)).Append("](").Append(f.Shown.RelativePath).Append(")\n\n");
+                    if (f.Shown.Format is "png" or "svg")
+                        sb.Append("![").Append(Escape(f.Shown.Title)).Append("](").Append(f.Shown.RelativePath).Append(")\n\n");
                     sb.Append('*').Append(Escape(f.Shown.Title)).Append(".* ").Append(Escape(f.Shown.Caption)).Append(' ');
                     sb.Append(string.Join(" · ", f.Alternatives.Select(a => $"[{a.Format.ToUpperInvariant()}]({a.RelativePath})"))).Append("\n\n");
                     break;

@@ -51,8 +51,9 @@ public static class ReportBuilder
         doc.Table(new ReportTable($"Correlation of {input.XColumn} and {input.YColumn} (n = {dep.N})",
             ["measure", "estimate", "p-value", "95 % interval", "note"],
             [Corr("Pearson r", dep.Pearson), Corr("Spearman rho", dep.Spearman), Corr("Kendall tau-b", dep.Kendall)], IsFitTable: true));
-        doc.Table(new ReportTable("Empirical tail dependence", ["lower", "upper", "estimator", "threshold"],
-            [[Num(dep.Tail.Lower), Num(dep.Tail.Upper), dep.Tail.Estimator ?? "–", Num(dep.Tail.Threshold)]]));
+        doc.Table(new ReportTable("Empirical tail dependence", ["lower", "upper", "estimator", "threshold", "pairs in the tail", "note"],
+            [[Num(dep.Tail.Lower), Num(dep.Tail.Upper), dep.Tail.Estimator ?? "–", Num(dep.Tail.Threshold),
+              dep.Tail.K is { } tailPairs ? Int(tailPairs) : "–", dep.Tail.Note ?? ""]]));
 
         var names = new Dictionary<string, string> { ["x"] = $"x: {input.XColumn}", ["y"] = $"y: {input.YColumn}" };
         Section(doc, "Marginal distributions", results.Marginals, fitTables: true, names: names);
@@ -91,8 +92,8 @@ public static class ReportBuilder
             foreach (string id in order)
             {
                 var list = byId[id];
-                var shown = list.Find(f => f.Format == "png") ?? list.Find(f => f.Format == "svg");
-                if (shown is null) continue;
+                // PNG shown where written, else SVG; with PDF only the figure is listed with its links
+                var shown = list.Find(f => f.Format == "png") ?? list.Find(f => f.Format == "svg") ?? list[0];
                 doc.Figure(shown, list);
             }
         }
@@ -171,6 +172,9 @@ public static class ReportBuilder
                 doc.Table(new ReportTable(sub, ["item", "value"], [Row("value", o2.ToJsonString())]));
         }
     }
+
+    /// <summary>Lists longer than this are not spelled out in a cell.</summary>
+    private const int MaxListInCell = 12;
 
     /// <summary>Text values longer than this go to the table's numbered notes instead of a cell.</summary>
     private const int LongText = 48;
@@ -253,6 +257,9 @@ public static class ReportBuilder
             case JsonValue v when v.TryGetValue(out double d): return Num(d);
             case JsonValue v when v.TryGetValue(out bool b): return b ? "yes" : "no";
             case JsonValue v when v.TryGetValue(out string? s): return s ?? "";
+            // long numeric series (density grids) belong to the results file and the figure CSVs, not to a table cell
+            case JsonArray a when a.Count > MaxListInCell: return $"({a.Count} values; see results.json)";
+            case JsonArray a when a.All(x => x is JsonValue v && v.TryGetValue(out string? _)): return string.Join(" ", a.Select(x => Cell(x!)));
             case JsonArray a: return "[" + string.Join(", ", a.Select(x => x is null ? "–" : Cell(x))) + "]";
             case JsonObject o when IsNameToNumberMap(o): return string.Join(", ", o.Select(kv => $"{kv.Key} = {(kv.Value is null ? "–" : Cell(kv.Value))}"));
             case JsonObject o: return string.Join(", ", o.Select(kv => $"{Words(kv.Key)} = {(kv.Value is null ? "–" : Cell(kv.Value))}"));

@@ -103,6 +103,41 @@ public sealed class ReportWriterTests(HostileReportFixture fixture) : IClassFixt
     }
 
     [Fact]
+    public void Html_tags_are_balanced()
+    {
+        // HTML 5 (WHATWG, section 13.1.2): void elements have no end tag; every other element opened here is closed in order.
+        string html = File.ReadAllText(Path.Combine(_dir, ReportWriter.HtmlFile));
+        string[] voids = ["meta", "img", "br", "hr", "link", "input"];
+        var stack = new Stack<string>();
+        foreach (Match m in Regex.Matches(html, "<(/?)([a-zA-Z][a-zA-Z0-9]*)[^>]*>"))
+        {
+            string name = m.Groups[2].Value.ToLowerInvariant();
+            if (voids.Contains(name)) continue;
+            if (m.Groups[1].Value == "") stack.Push(name);
+            else Assert.Equal(stack.Pop(), name);
+        }
+        Assert.Empty(stack);
+    }
+
+    [Fact]
+    public void Pdf_only_figures_are_listed_with_links_and_none_writes_nothing()
+    {
+        string dir = Path.Combine(_dir, "pdf-only");
+        var sample = FigureTestData.Sample();
+        var (results, model) = FigureTestData.Analyse(sample);
+        var figures = FigureSet.RenderAll(sample, results, model, dir, new FigureOptions { Formats = ["pdf"], WidthMm = 60, Dpi = 72 });
+        ReportWriter.Write(results, figures, dir);
+        string html = File.ReadAllText(Path.Combine(dir, ReportWriter.HtmlFile));
+        Assert.DoesNotContain("<img", html);
+        Assert.Contains("href=\"figures/scatter.pdf\"", html);
+        Assert.DoesNotContain("![", File.ReadAllText(Path.Combine(dir, ReportWriter.MarkdownFile)));
+
+        string none = Path.Combine(_dir, "none");
+        Assert.Empty(FigureSet.RenderAll(sample, results, model, none, new FigureOptions { Formats = [] }));
+        Assert.False(Directory.Exists(Path.Combine(none, "figures")));
+    }
+
+    [Fact]
     public void Field_names_read_as_words()
     {
         Assert.Equal("log likelihood", ReportBuilder.Words("logLikelihood"));
