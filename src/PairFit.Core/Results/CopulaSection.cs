@@ -85,4 +85,10 @@ public sealed record CopulaGof
 
     /// <summary>Replicates whose refit failed and were left out, if any.</summary>
     public int? FailedReplicates { get; init; }
+
+    /// <summary>Pairs the test used, when it ran on a random subsample of a large sample (null = all pairs).</summary>
+    public int? SubsamplePairs { get; init; }
+
+    /// <summary>How the test was run, when it differs from the plain bootstrap on all pairs.</summary>
+    public string? Note { get; init; }
 }
