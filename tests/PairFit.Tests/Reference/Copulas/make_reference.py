@@ -153,6 +153,15 @@ with open("bivariate_normal.csv", "w", newline="") as f:
         for rho in (-0.999, -0.95, -0.6, -0.2, 0.0, 0.1, 0.5, 0.8, 0.93, 0.999):
             w.writerow([r(h), r(k), r(rho), r(bvn_cdf(h, k, rho))])
 
+# ---------- 3b. bivariate t CDF on the t scale, non-integer and integer nu, including tails ----------
+with open("bivariate_t.csv", "w", newline="") as f:
+    w = csv.writer(f)
+    w.writerow(["h", "k", "rho", "nu", "cdf"])
+    for nu in (2.0, 2.5, 3.0, 4.5, 11.0, 30.5, 59.5):
+        for h, k in ((0, 0), (-1, 0.5), (1.5, -2), (-3, -3), (2, 2.5), (-8, 1), (-25, -20), (0.3, 40)):
+            for rho in (-0.95, -0.3, 0.0, 0.6, 0.97):
+                w.writerow([r(h), r(k), r(rho), r(nu), r(bvt_cdf(h, k, rho, nu))])
+
 # ---------- 4. univariate Student t quantiles and CDF ----------
 with open("student_t.csv", "w", newline="") as f:
     w = csv.writer(f)
