@@ -63,8 +63,14 @@ public sealed class FrankCopula : ICopula
     {
         double vBar = 1 - v;
         if (_negative) (v, vBar) = (vBar, v);
-        return _logA + _log1mExpA - _a * (u + v) - 2 * LogD(u, v, vBar);
+        if (_a > DirectLimit) return _logA + _log1mExpA - _a * (u + v) - 2 * LogD(u, v, vBar);
+        // For a ≤ 300 no exponential here underflows (e^(−300) ≈ 5e−131), so D is formed directly
+        // from its two non-negative terms: half the transcendental calls of the log-space form.
+        double d = -Math.Exp(-_a * u) * MathExtras.ExpM1(-_a * v) - Math.Exp(-_a * v) * MathExtras.ExpM1(-_a * vBar);
+        return _logA + _log1mExpA - _a * (u + v) - 2 * Math.Log(d);
     }
+
+    private const double DirectLimit = 300.0;
 
     public double Cdf(double u, double v)
     {

@@ -162,6 +162,27 @@ with open("bivariate_t.csv", "w", newline="") as f:
             for rho in (-0.95, -0.3, 0.0, 0.6, 0.97):
                 w.writerow([r(h), r(k), r(rho), r(nu), r(bvt_cdf(h, k, rho, nu))])
 
+# ---------- 3c. expm1 and log(1 - exp(-a)) (helpers every family leans on), in 250-digit decimal ----------
+def dexpm1(x):
+    # Taylor series below 1e-3 (the decimal exp cannot resolve 1 + 1e-300), exp - 1 above.
+    if abs(x) < Dec("1e-3"):
+        term, total = x, Dec(0)
+        for n in range(2, 60):
+            total += term
+            term = term * x / n
+        return total
+    return dexp(x) - 1
+
+with open("expm1.csv", "w", newline="") as f:
+    w = csv.writer(f)
+    w.writerow(["x", "expm1", "log1mexp"])
+    for x in (1e-300, 1e-17, 1e-10, 3e-6, 1e-3, 0.05, 0.2, 0.49, 0.5, 0.51, 1.0, 2.5, 30.0, 700.0):
+        for sx in (x, -x):
+            xd = D(sx)
+            em1 = dexpm1(xd)
+            l1me = dlog(-dexpm1(-xd)) if sx > 0 else ""
+            w.writerow([r(sx), r(em1), "" if l1me == "" else r(l1me)])
+
 # ---------- 4. univariate Student t quantiles and CDF ----------
 with open("student_t.csv", "w", newline="") as f:
     w = csv.writer(f)
