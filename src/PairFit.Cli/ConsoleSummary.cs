@@ -17,7 +17,7 @@ public static class ConsoleSummary
         if (r.Marginals is { } m)
         {
             w.WriteLine();
-            w.WriteLine($"Marginals (lowest AIC): {r.Input.XColumn} ~ {m.X.Selected}, {r.Input.YColumn} ~ {m.Y.Selected}");
+            MarginalTable.Write(m, w);
         }
         if (r.Copula is { } c)
         {

@@ -124,7 +124,10 @@ internal sealed record CsvLayout(char Delimiter, bool DecimalComma, string[] Hea
         const int listed = 20;
         string available = string.Join(", ", Enumerable.Range(0, Math.Min(listed, Header.Length)).Select(ColumnLabel))
             + (Header.Length > listed ? $", ... ({Header.Length - listed} more)" : "");
-        throw new PairFitInputException($"{optionName} '{text}' is not a column of '{path}'; the columns are: {available}.");
+        string hint = Header.Length == 1
+            ? $" Only one column was found with the {CsvOptions.DelimiterName(Delimiter)} delimiter: if the columns are separated by something else, set --delimiter."
+            : "";
+        throw new PairFitInputException($"{optionName} '{text}' is not a column of '{path}'; the columns are: {available}.{hint}");
     }
 
     /// <summary>

@@ -12,8 +12,9 @@ namespace PairFit.Core.Data;
 /// <remarks>
 /// Hand-written rather than Microsoft.Data.Analysis's LoadCsv: it streams (memory does not
 /// grow with the file beyond the two selected columns), keeps the line number of every record
-/// for error messages, and measured about 4x faster on 1,000,000 rows (see the report in
-/// tests/PairFit.Benchmarks/DataBenchmarks.cs).
+/// for error messages, and on a 1,000,000-row two-column file it measured about 11x faster
+/// (0.62 s vs 6.6 s wall, 0.13 s vs 1.7 s CPU) and allocated 98 MB instead of 4.8 GB
+/// (tests/PairFit.Benchmarks/DataBenchmarks.cs, on a busy 2-core machine).
 /// </remarks>
 internal sealed class DelimitedRecordReader : IDisposable
 {

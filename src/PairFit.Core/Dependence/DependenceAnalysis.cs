@@ -13,7 +13,7 @@ public static class DependenceAnalysis
 {
     public const string PearsonMethod = "p-value: t test on n-2 df (exact under bivariate normality); 95% interval: Fisher z, se = 1/sqrt(n-3)";
     public const string SpearmanMethod = "average ranks for ties; p-value: t approximation on n-2 df; 95% interval: Fisher z with the Bonett-Wright (2000) se = sqrt((1+rho^2/2)/(n-3))";
-    public const string KendallMethod = "tau-b with tie corrections; p-value: normal approximation with the tie-corrected null variance (Kendall 1970); 95% interval: tau-b +/- 1.96 jackknife se, clipped to [-1, 1]";
+    public const string KendallMethod = "tau-b with tie corrections; p-value: normal approximation with the tie-corrected null variance (Kendall 1970), exact for n <= 33 without ties; 95% interval: tau-b +/- 1.96 jackknife se, clipped to [-1, 1]";
     public const string TailEstimator = "empirical on pseudo-observations u = rank/(n+1): upper = #{u>t, v>t}/(n(1-t)), lower = #{u<=1-t, v<=1-t}/(n(1-t)), t = 1 - k/n, k = floor(sqrt(n))";
 
     public static DependenceSection Compute(PairedSample sample)
@@ -44,6 +44,7 @@ public static class DependenceAnalysis
     private static string? UndefinedReason(PairedSample s)
     {
         if (s.Count < 2) return $"undefined: {s.Count} pair(s); at least two are needed";
+        if (!AllFinite(s.X) || !AllFinite(s.Y)) return "undefined: the sample holds infinite or NaN values (the CSV reader never produces them)";
         bool xConstant = IsConstant(s.X), yConstant = IsConstant(s.Y);
         if (xConstant || yConstant)
         {
@@ -51,6 +52,12 @@ public static class DependenceAnalysis
             return $"undefined: {which} constant";
         }
         return null;
+    }
+
+    private static bool AllFinite(double[] v)
+    {
+        foreach (double a in v) if (!double.IsFinite(a)) return false;
+        return true;
     }
 
     private static bool IsConstant(double[] v)
@@ -107,16 +114,13 @@ public static class DependenceAnalysis
         int n = x.Length;
         var counts = KendallTau.Count(x, y);
         double tau = counts.TauB;
-        double? p = null;
-        if (n >= 3)
-        {
-            double variance = counts.NullVarianceOfS;
-            p = variance > 0 ? CorrelationInference.NormalPValue(counts.S / Math.Sqrt(variance)) : null;
-        }
+        double pValue = KendallTau.PValue(counts, out bool exact);
+        double? p = double.IsNaN(pValue) ? null : pValue;
         double[]? ci = null;
         if (n >= 4 && KendallTau.JackknifeStandardError(x, y, counts) is { } se)
             ci = [Math.Max(-1, tau - CorrelationInference.Z975 * se), Math.Min(1, tau + CorrelationInference.Z975 * se)];
         string note = WithSmallSampleCaution(KendallMethod, n);
+        if (exact) note += "; this p-value is exact (no ties)";
         if (n >= 4 && ci is null) note += "; no interval: leaving one pair out makes a column constant";
         return new CorrelationEstimate { Estimate = tau, PValue = p, Ci95 = ci, Note = note };
     }

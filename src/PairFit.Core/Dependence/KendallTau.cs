@@ -198,20 +198,70 @@ public static class KendallTau
         if (n < 3) return null;
         var (score, xGroup, yGroup) = ConcordanceScores(x, y);
         double pairsWithout = (double)(n - 1) * (n - 2) / 2;
-        var leaveOut = new double[n];
         double mean = 0;
         for (int i = 0; i < n; i++)
         {
-            double dx = pairsWithout - counts.XTies.Pairs + (xGroup[i] - 1);
-            double dy = pairsWithout - counts.YTies.Pairs + (yGroup[i] - 1);
-            if (dx <= 0 || dy <= 0) return null;
-            leaveOut[i] = (counts.S - score[i]) / Math.Sqrt(dx * dy);
-            mean += leaveOut[i];
+            double t = LeaveOut(i);
+            if (double.IsNaN(t)) return null;
+            mean += t;
         }
         mean /= n;
         double ss = 0;
-        for (int i = 0; i < n; i++) { double d = leaveOut[i] - mean; ss += d * d; }
+        for (int i = 0; i < n; i++) { double d = LeaveOut(i) - mean; ss += d * d; }
         return Math.Sqrt((n - 1.0) / n * ss);
+
+        // τ_(−i), recomputed rather than stored (saves n doubles at n = 10^6); NaN when undefined.
+        double LeaveOut(int i)
+        {
+            double dx = pairsWithout - counts.XTies.Pairs + (xGroup[i] - 1);
+            double dy = pairsWithout - counts.YTies.Pairs + (yGroup[i] - 1);
+            return dx > 0 && dy > 0 ? (counts.S - score[i]) / Math.Sqrt(dx * dy) : double.NaN;
+        }
+    }
+    /// <summary>Largest n for which the exact null distribution is used whenever there are no ties.</summary>
+    public const int ExactPValueMaxN = 33;
+
+    /// <summary>
+    /// Two-sided p-value of tau against independence. Exact when neither variable has ties and
+    /// n ≤ <see cref="ExactPValueMaxN"/> (or the sample is within one exchange of perfect
+    /// (dis)agreement, where the tail holds only a handful of permutations): the permutation
+    /// distribution of the number of discordant pairs (Kendall 1970, ch. 5), by the recursion
+    /// P_j(k) = (1/j) Σ_{i=0}^{j−1} P_{j−1}(k − i). Otherwise the normal approximation with the
+    /// tie-corrected variance <see cref="KendallCounts.NullVarianceOfS"/>. (The same rule as
+    /// SciPy's kendalltau with method 'auto'.) NaN when undefined (n &lt; 3 or a constant variable).
+    /// </summary>
+    public static double PValue(KendallCounts counts, out bool exact)
+    {
+        exact = false;
+        int n = counts.N;
+        if (n < 3 || counts.XTies.Pairs == counts.TotalPairs || counts.YTies.Pairs == counts.TotalPairs) return double.NaN;
+        long fewer = (counts.TotalPairs - Math.Abs(counts.S)) / 2; // min(n_c, n_d) when there are no ties
+        if (counts.XTies.Pairs == 0 && counts.YTies.Pairs == 0 && (n <= ExactPValueMaxN || fewer <= 1))
+        {
+            exact = true;
+            return Math.Min(1.0, 2 * ExactLowerTail(n, fewer));
+        }
+        double variance = counts.NullVarianceOfS;
+        return variance > 0 ? CorrelationInference.NormalPValue(counts.S / Math.Sqrt(variance)) : double.NaN;
+    }
+
+    /// <summary>P(D ≤ c) for the number D of inversions of a uniformly random permutation of n items.</summary>
+    private static double ExactLowerTail(int n, long c)
+    {
+        // p[k] = P_j(k) for k ≤ c; built up from j = 1 (p = [1]); the j-th step is a moving sum of width j.
+        var p = new double[c + 1];
+        var cumulative = new double[c + 1];
+        p[0] = 1;
+        for (int j = 2; j <= n; j++)
+        {
+            double sum = 0;
+            for (long k = 0; k <= c; k++) { sum += p[k]; cumulative[k] = sum; }
+            for (long k = 0; k <= c; k++)
+                p[k] = (cumulative[k] - (k - j >= 0 ? cumulative[k - j] : 0)) / j;
+        }
+        double tail = 0;
+        foreach (double v in p) tail += v;
+        return tail;
     }
 }
 

@@ -43,6 +43,7 @@ public sealed class ExponentialDistribution : IMarginalDistribution
     {
         public string Name => FamilyName;
         public IReadOnlyList<string> ParameterNames => Names;
+        public bool LikelihoodFromSufficientStatistics => true;
 
         public string? SupportProblem(MarginalSample s) => SupportChecks.NonNegative(s, FamilyName)
             ?? (s.Max > 0 ? null : "exponential needs some value > 0");

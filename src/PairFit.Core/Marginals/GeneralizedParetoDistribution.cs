@@ -150,7 +150,7 @@ public sealed class GeneralizedParetoDistribution : IMarginalDistribution
         if (best < 0) return new([location, s.Mean - location, 0], false, "mle", "profile likelihood undefined", fixedMask);
         double step = (uHigh - uLow) / gridSize;
         double centre = uLow + step * (best + 0.5);
-        double? root = MonotoneRoot.Find(u => Profile(y, u).Slope, centre - step, centre + step, uLow - 10, uHigh + 10, 1e-12);
+        double? root = DataRoot.Find((v, u) => Profile(v, u).Slope, y, sub, centre - step, centre + step, uLow - 10, uHigh + 10, 0.05, 1e-12);
         bool converged = root is not null;
         double uStar = root ?? centre;
         var (_, _, xiHat) = Profile(y, uStar);

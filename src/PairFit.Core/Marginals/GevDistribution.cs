@@ -118,6 +118,39 @@ public sealed class GevDistribution : IMarginalDistribution
         return sum - values.Length * Math.Log(sigma);
     }
 
+    /// <summary>
+    /// Σ log f and its gradient in (μ, σ, ξ). With z = (x − μ)/σ, t = 1 + ξz, r = ln t/ξ, u = e^(−r):
+    /// ℓ = −ln σ − (1 + ξ) r − u, ∂ℓ/∂μ = (1 + ξ − u)/(σt), ∂ℓ/∂σ = −1/σ + (1 + ξ − u) z/(σt),
+    /// ∂ℓ/∂ξ = −r + (u − 1 − ξ)(z/t − r)/ξ (differentiating Coles 2001, eq. 3.7). (z/t − r)/ξ cancels
+    /// for small ξz and is then taken from its series −z²/2 + 2ξz³/3 − 3ξ²z⁴/4.
+    /// </summary>
+    internal static double LogLikelihoodWithGradient(ReadOnlySpan<double> values, double[] p, double[]? gradient)
+    {
+        double mu = p[0], sigma = p[1], xi = p[2];
+        if (gradient is null) return LogLikelihood(values, mu, sigma, xi);
+        if (!(sigma > 0) || !(xi > -1) || !double.IsFinite(mu) || !double.IsFinite(xi)) return double.NegativeInfinity;
+        double sum = 0, gMu = 0, gSigma = 0, gXi = 0, inv = 1 / sigma;
+        foreach (double x in values)
+        {
+            double z = (x - mu) * inv, a = xi * z;
+            if (!(a > -1)) return double.NegativeInfinity;
+            double t = 1 + a;
+            double r = Math.Abs(a) < 1e-3 ? z * (1 - a * (0.5 - a * (1.0 / 3 - 0.25 * a))) : MathExtras.Log1P(a) / xi;
+            double u = Math.Exp(-r);
+            double dr = Math.Abs(a) < 1e-3 ? z * z * (-0.5 + a * (2.0 / 3 - 0.75 * a)) : (z / t - r) / xi;
+            double c = (1 + xi - u) / t;
+            sum -= (1 + xi) * r + u;
+            gMu += c;
+            gSigma += c * z;
+            gXi += -r - (1 + xi - u) * dr;
+        }
+        int n = values.Length;
+        gradient[0] = gMu * inv;
+        gradient[1] = (gSigma - n) * inv;
+        gradient[2] = gXi;
+        return sum - n * Math.Log(sigma);
+    }
+
     /// <summary>(location, scale, shape ξ = −k) from L-moments (Hosking, Wallis and Wood 1985).</summary>
     internal static double[] FromLMoments(LMoments l)
     {
@@ -142,13 +175,10 @@ public sealed class GevDistribution : IMarginalDistribution
             double[][] starts =
             [
                 [l[0], l[1], Math.Clamp(l[2], -0.9, 2.0)],
-                [l[0], 1.5 * l[1], Math.Clamp(l[2], -0.9, 2.0)],
+                [l[0], 1.5 * l[1], Math.Clamp(l[2], -0.5, 1.0)],
                 frame.Standardise([.. GumbelDistribution.FromLMoments(s.LMoments), 0.0]),
             ];
-            var outcome = LikelihoodMaximizer.Maximize(
-                p => GevDistribution.LogLikelihood(frame.Values, p[0], p[1], p[2]),
-                frame.Subsample is { } sub ? p => GevDistribution.LogLikelihood(sub, p[0], p[1], p[2]) : null,
-                frame.SubsampleWeight, starts, [0.1, 0.1, 0.05]);
+            var outcome = LikelihoodMaximizer.Maximize(LogLikelihoodWithGradient, frame.Values, starts, [0.1, 0.1, 0.05]);
             return new(frame.Unstandardise(outcome.Parameters), outcome.Converged, "mle", outcome.Note);
         }
 

@@ -67,21 +67,23 @@ public sealed class GumbelDistribution : IMarginalDistribution
             double[] x = s.Values;
             int n = x.Length;
             double yMin = (x[0] - c) / d;
-            // h(β) = ȳ − β − Σ y w / Σ w with w = exp(−(y − y_min)/β); ȳ = 0 after standardising.
-            double Equation(double logBeta)
+            // h(β) = ȳ − β − Σ y w / Σ w with w = exp(−(y − y_min)/β), over a set of data values.
+            double Equation(double[] v, double logBeta)
             {
-                double beta = Math.Exp(logBeta), sw = 0, swy = 0;
-                for (int i = 0; i < n; i++)
+                double beta = Math.Exp(logBeta), sw = 0, swy = 0, sy = 0;
+                foreach (double xi in v)
                 {
-                    double y = (x[i] - c) / d;
+                    double y = (xi - c) / d;
                     double w = Math.Exp(-(y - yMin) / beta);
                     sw += w;
                     swy += w * y;
+                    sy += y;
                 }
-                return -beta - swy / sw;
+                return sy / v.Length - beta - swy / sw;
             }
             double b0 = Math.Sqrt(6) / Math.PI;   // moment estimate: sd = π β / √6
-            double? logBeta = MonotoneRoot.Find(Equation, Math.Log(b0) - 0.2, Math.Log(b0) + 0.2, -40, 10, 1e-13);
+            double? logBeta = DataRoot.Find(Equation, x, MarginalSample.Stratified(x, LikelihoodMaximizer.SubsampleSize),
+                Math.Log(b0) - 0.2, Math.Log(b0) + 0.2, -40, 10, 0.02, 1e-13);
             if (logBeta is null) return new(FromLMoments(s.LMoments), false, "mle", "scale equation has no root; L-moment estimate kept");
             double b = Math.Exp(logBeta.Value), sum = 0;
             for (int i = 0; i < n; i++) sum += Math.Exp(-((x[i] - c) / d - yMin) / b);

@@ -31,6 +31,9 @@ public interface IMarginalFamily
     }
 
     IMarginalDistribution Create(IReadOnlyList<double> parameters);
+
+    /// <summary>True when <see cref="LogLikelihood"/> works from sufficient statistics (no pass over the data).</summary>
+    bool LikelihoodFromSufficientStatistics => false;
 }
 
 /// <summary>

@@ -1,4 +1,5 @@
 using MathNet.Numerics;
+using PairFit.Core.Common;
 using PairFit.Core.Marginals.Fitting;
 
 namespace PairFit.Core.Marginals;
@@ -30,7 +31,7 @@ public sealed class LogNormalDistribution : IMarginalDistribution
     public double SupportLower => 0.0;
     public double SupportUpper => double.PositiveInfinity;
     public double Mean => Math.Exp(Mu + 0.5 * Sigma * Sigma);
-    public double Variance => SpecialFunctions.Expm1(Sigma * Sigma) * Math.Exp(2 * Mu + Sigma * Sigma);
+    public double Variance => MathExtras.ExpM1(Sigma * Sigma) * Math.Exp(2 * Mu + Sigma * Sigma);
 
     public double LogDensity(double x)
     {
@@ -50,6 +51,7 @@ public sealed class LogNormalDistribution : IMarginalDistribution
     {
         public string Name => FamilyName;
         public IReadOnlyList<string> ParameterNames => Names;
+        public bool LikelihoodFromSufficientStatistics => true;
         public string? SupportProblem(MarginalSample s) => SupportChecks.Positive(s, FamilyName);
 
         public MarginalEstimate FitMaximumLikelihood(MarginalSample s) => new([s.MeanLog, s.StandardDeviationLog], true, "mle");

@@ -179,8 +179,12 @@ public static class MarginalAnalysis
             double ll = family.LogLikelihood(sample, estimate.Parameters);
             bool finite = double.IsFinite(ll);
             if (!finite) notes.Add("some values lie outside the support of this fit, so it has no likelihood, AIC or BIC");
+            // Families that need a pass over the data per likelihood evaluation take the curvature
+            // from the stratified subsample at large n (StandardErrors explains the scaling).
+            var curvatureSample = family.LikelihoodFromSufficientStatistics ? sample : sample.Subsample;
             double?[] se = estimate.Method == MarginalOptions.MethodMle && finite
-                ? StandardErrors.FromObservedInformation(p => family.LogLikelihood(sample, p), estimate.Parameters, estimate.FixedMask)
+                ? StandardErrors.FromObservedInformation(p => family.LogLikelihood(curvatureSample, p), estimate.Parameters, estimate.FixedMask,
+                    (double)sample.N / curvatureSample.N)
                 : new double?[k];
             if (estimate.Method != MarginalOptions.MethodMle) notes.Add("no standard errors for L-moment estimates");
 

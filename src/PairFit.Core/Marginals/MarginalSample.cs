@@ -12,6 +12,7 @@ public sealed class MarginalSample
     private double[]? _logs;
     private double[]? _log10s;
     private LMoments? _lMoments, _logLMoments;
+    private MarginalSample? _subsample;
 
     public MarginalSample(ReadOnlySpan<double> values)
     {
@@ -108,6 +109,13 @@ public sealed class MarginalSample
 
     /// <summary>L-moments of ln x; only when every value is positive.</summary>
     public LMoments LogLMoments => _logLMoments ??= LMoments.FromSorted(Logs);
+
+    /// <summary>
+    /// A stratified subsample of at most <see cref="LikelihoodMaximizer.SubsampleSize"/> values (this
+    /// sample itself when it is no larger), for curvature estimates at large n.
+    /// </summary>
+    public MarginalSample Subsample => N <= Fitting.LikelihoodMaximizer.SubsampleSize ? this
+        : _subsample ??= new MarginalSample(Stratified(Values, Fitting.LikelihoodMaximizer.SubsampleSize));
 
     /// <summary>
     /// Every k-th order statistic (about <paramref name="size"/> of them): a stratified subsample

@@ -57,6 +57,7 @@ public sealed class NormalDistribution : IMarginalDistribution
     {
         public string Name => FamilyName;
         public IReadOnlyList<string> ParameterNames => Names;
+        public bool LikelihoodFromSufficientStatistics => true;
         public string? SupportProblem(MarginalSample sample) => null;
 
         public MarginalEstimate FitMaximumLikelihood(MarginalSample s) => new([s.Mean, s.StandardDeviation], true, "mle");

@@ -24,7 +24,8 @@ public sealed class Pearson3Distribution : IMarginalDistribution
     /// <summary>Below this |γ| the law is taken as normal (α = 4/γ² would exceed 4e12).</summary>
     internal const double NormalLimit = 1e-6;
 
-    private readonly double _alpha, _beta, _bound, _logBeta, _lnGammaAlpha;
+    private readonly double _alpha, _beta, _bound, _logBeta;
+    private readonly StandardGamma _gamma;
 
     public Pearson3Distribution(double mu, double sigma, double skew)
     {
@@ -39,7 +40,7 @@ public sealed class Pearson3Distribution : IMarginalDistribution
             _beta = sigma * Math.Abs(skew) / 2;
             _bound = mu - 2 * sigma / skew;
             _logBeta = Math.Log(_beta);
-            _lnGammaAlpha = SpecialFunctions.GammaLn(_alpha);
+            _gamma = new StandardGamma(_alpha);
         }
     }
 
@@ -62,24 +63,21 @@ public sealed class Pearson3Distribution : IMarginalDistribution
     public double LogDensity(double x)
     {
         if (IsNormal) return new NormalDistribution(Mu, Sigma).LogDensity(x);
-        double y = Reduced(x);
-        if (y < 0) return double.NegativeInfinity;
-        if (y == 0) return GammaDistribution.StandardLogDensity(_alpha, 0) - _logBeta;
-        return (_alpha - 1) * Math.Log(y) - y - _lnGammaAlpha - _logBeta;
+        return _gamma.LogDensity(Reduced(x)) - _logBeta;
     }
 
     public double Cdf(double x)
     {
         if (IsNormal) return new NormalDistribution(Mu, Sigma).Cdf(x);
         double y = Math.Max(Reduced(x), 0);
-        return Skew > 0 ? SpecialFunctions.GammaLowerRegularized(_alpha, y) : SpecialFunctions.GammaUpperRegularized(_alpha, y);
+        return Skew > 0 ? GammaDistribution.LowerRegularized(_alpha, y) : GammaDistribution.UpperRegularized(_alpha, y);
     }
 
     public double Survival(double x)
     {
         if (IsNormal) return new NormalDistribution(Mu, Sigma).Survival(x);
         double y = Math.Max(Reduced(x), 0);
-        return Skew > 0 ? SpecialFunctions.GammaUpperRegularized(_alpha, y) : SpecialFunctions.GammaLowerRegularized(_alpha, y);
+        return Skew > 0 ? GammaDistribution.UpperRegularized(_alpha, y) : GammaDistribution.LowerRegularized(_alpha, y);
     }
 
     public double Quantile(double p)
@@ -87,9 +85,10 @@ public sealed class Pearson3Distribution : IMarginalDistribution
         if (IsNormal) return new NormalDistribution(Mu, Sigma).Quantile(p);
         if (p <= 0) return SupportLower;
         if (p >= 1) return SupportUpper;
+        // For γ < 0, x ≤ x_p exactly when the gamma variate exceeds its upper-tail p quantile.
         return Skew > 0
-            ? _bound + _beta * GammaDistribution.StandardQuantile(_alpha, p)
-            : _bound - _beta * GammaDistribution.StandardQuantile(_alpha, 1 - p);
+            ? _bound + _beta * (p <= 0.5 ? GammaDistribution.StandardQuantile(_alpha, p, upper: false) : GammaDistribution.StandardQuantile(_alpha, 1 - p, upper: true))
+            : _bound - _beta * (p <= 0.5 ? GammaDistribution.StandardQuantile(_alpha, p, upper: true) : GammaDistribution.StandardQuantile(_alpha, 1 - p, upper: false));
     }
 
     internal static double LogLikelihood(ReadOnlySpan<double> values, double mu, double sigma, double skew)
@@ -102,15 +101,15 @@ public sealed class Pearson3Distribution : IMarginalDistribution
             return s - values.Length * (Math.Log(sigma) + 0.5 * Math.Log(2 * Math.PI));
         }
         double alpha = 4 / (skew * skew), beta = sigma * Math.Abs(skew) / 2, bound = mu - 2 * sigma / skew;
-        double sign = Math.Sign(skew), sumLog = 0, sumY = 0;
+        double sign = Math.Sign(skew), sum = 0;
+        var gamma = new StandardGamma(alpha);
         foreach (double x in values)
         {
             double y = sign * (x - bound) / beta;
             if (!(y > 0)) return double.NegativeInfinity;
-            sumLog += Math.Log(y);
-            sumY += y;
+            sum += gamma.LogDensity(y);
         }
-        return (alpha - 1) * sumLog - sumY - values.Length * (SpecialFunctions.GammaLn(alpha) + Math.Log(beta));
+        return sum - values.Length * Math.Log(beta);
     }
 
     /// <summary>(μ, σ, γ) from L-moments by the rational approximations for α(τ3) of Hosking and Wallis (1997).</summary>
@@ -147,9 +146,7 @@ public sealed class Pearson3Distribution : IMarginalDistribution
         // y: standardised, and mirrored for negative skew, so the bound is always below the data.
         var y = new double[n];
         for (int i = 0; i < n; i++) y[i] = mirrored ? (c - sorted[n - 1 - i]) / d : (sorted[i] - c) / d;
-        double yMin = y[0], yMean = 0;
-        for (int i = 0; i < n; i++) yMean += y[i];
-        yMean /= n;
+        double yMin = y[0];
         double[] sub = MarginalSample.Stratified(y, LikelihoodMaximizer.SubsampleSize);
 
         // Threshold a = yMin − e^r. Profile (value, derivative in r) on a given set of values.
@@ -189,7 +186,7 @@ public sealed class Pearson3Distribution : IMarginalDistribution
         if (best < 0) return new([c, d * Math.Sqrt(Math.PI), 0], false, "mle", "profile likelihood undefined");
         double step = (rHigh - rLow) / (gridSize - 1);
         double lo = rLow + step * Math.Max(best - 1, 0), hi = rLow + step * Math.Min(best + 1, gridSize - 1);
-        double? root = MonotoneRoot.Find(r => Profile(y, r).Slope, lo, hi, rLow - 20, rHigh + 6, 1e-10);
+        double? root = DataRoot.Find((v, r) => Profile(v, r).Slope, y, sub, lo, hi, rLow - 20, rHigh + 6, 0.1, 1e-10);
         string? note = null;
         bool converged = true;
         double rStar;

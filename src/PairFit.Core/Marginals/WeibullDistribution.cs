@@ -66,22 +66,25 @@ public sealed class WeibullDistribution : IMarginalDistribution
         public MarginalEstimate FitMaximumLikelihood(MarginalSample s)
         {
             double[] lx = s.Logs;
-            double top = lx[^1], meanLog = s.MeanLog;
-            double ProfileEquation(double logK)
+            double top = lx[^1];
+            // Profile equation in ln k over a set of log-values (all of them, or a subsample).
+            double ProfileEquation(double[] v, double logK)
             {
-                double k = Math.Exp(logK), sw = 0, swd = 0;
-                for (int i = 0; i < lx.Length; i++)
+                double k = Math.Exp(logK), sw = 0, swd = 0, sl = 0;
+                foreach (double l in v)
                 {
-                    double d = lx[i] - top;
+                    double d = l - top;
                     double w = Math.Exp(k * d);
                     sw += w;
                     swd += w * d;
+                    sl += l;
                 }
-                return swd / sw + top - 1 / k - meanLog;
+                return swd / sw + top - 1 / k - sl / v.Length;
             }
             // Start from the log-moment relation sd(ln X) = π / (k √6) of the Weibull law.
             double k0 = Math.PI / (Math.Sqrt(6) * s.StandardDeviationLog);
-            double? logK = MonotoneRoot.Find(ProfileEquation, Math.Log(k0) - 0.2, Math.Log(k0) + 0.2, -30, 30, 1e-13);
+            double? logK = DataRoot.Find(ProfileEquation, lx, MarginalSample.Stratified(lx, LikelihoodMaximizer.SubsampleSize),
+                Math.Log(k0) - 0.2, Math.Log(k0) + 0.2, -30, 30, 0.02, 1e-13);
             if (logK is null) return new([1.0, s.Mean], false, "mle", "shape equation has no root");
             double k = Math.Exp(logK.Value);
             double sum = 0;

@@ -1,5 +1,4 @@
 using System.Globalization;
-using MathNet.Numerics.RootFinding;
 using PairFit.Core.Common;
 using PairFit.Core.Copulas;
 using PairFit.Core.Data;
@@ -184,29 +183,27 @@ public static class ProjectionAnalysis
         if (m < 1) notes.Add($"Q is undefined with probability {1 - m:G3}; the results describe Q where it is defined.");
         double F(double q) => Math.Min(1.0, qd.Cdf(q) / m);
         double S(double q) => Math.Min(1.0, qd.Survival(q) / m);
+        double SCoarse(double q) => Math.Min(1.0, qd.Survival(q, coarse: true) / m);
 
         var (bracketLo, bracketHi) = PilotBracket(model, program, o.Seed);
         double Quantile(double p) => InvertCdf(F, S, p, bracketLo, bracketHi);
+        // The tail index needs its far quantiles to a few digits only.
+        double FCoarse(double q) => Math.Min(1.0, qd.Cdf(q, coarse: true) / m);
+        double TailQuantile(double p) => InvertCdf(FCoarse, SCoarse, p, bracketLo, bracketHi, relativeTolerance: 1e-6);
 
         double median = Quantile(0.5);
         double scale = Quantile(0.75) - Quantile(0.25);
         if (!(scale > 0)) scale = Math.Max(Math.Abs(median), 1.0);
-        double lowerIndex = SampleStatistics.TailIndex(1e-4, 1e-6, median - Quantile(1e-4), median - Quantile(1e-6));
-        double upperIndex = SampleStatistics.TailIndex(1e-4, 1e-6, Quantile(1 - 1e-4) - median, Quantile(1 - 1e-6) - median);
+        double lowerIndex = SampleStatistics.TailIndex(1e-4, 1e-6, median - TailQuantile(1e-4), median - TailQuantile(1e-6));
+        double upperIndex = SampleStatistics.TailIndex(1e-4, 1e-6, TailQuantile(1 - 1e-4) - median, TailQuantile(1 - 1e-6) - median);
         var exist = MomentsExist(lowerIndex, upperIndex, notes);
 
         double? mean = null, sd = null;
         if (exist.Mean)
         {
-            // E[Q] − m = ∫₀^∞ S(m + r) dr − ∫₀^∞ F(m − r) dr; E[(Q − m)²] = 2∫₀^∞ r (S(m + r) + F(m − r)) dr.
-            double up1 = HalfLineIntegral(r => S(median + r), scale);
-            double down1 = HalfLineIntegral(r => F(median - r), scale);
-            mean = median + up1 - down1;
-            if (exist.Variance)
-            {
-                double second = HalfLineIntegral(r => 2 * r * (S(median + r) + F(median - r)), scale);
-                sd = Math.Sqrt(Math.Max(0.0, second - (up1 - down1) * (up1 - down1)));
-            }
+            var (m1, s1) = ConditionalMoments.MeanAndSd(model, program, exist.Variance);
+            mean = m1;
+            sd = exist.Variance ? s1 : null;
         }
 
         var quantiles = o.Probabilities.Select(p => new QuantileValue { P = p, Value = Quantile(p) }).ToArray();
@@ -218,7 +215,7 @@ public static class ProjectionAnalysis
             double v = Quantile(a);
             valueAtRisk.Add(new RiskValue { Level = a, Value = v });
             // TVaR_α = VaR_α + E[(Q − VaR_α)⁺]/(1 − α) for a continuous law (Acerbi and Tasche 2002, eq. 3.3).
-            tail.Add(new RiskValue { Level = a, Value = exist.TailMean ? v + HalfLineIntegral(r => S(v + r), scale) / (1 - a) : null });
+            tail.Add(new RiskValue { Level = a, Value = exist.TailMean ? v + HalfLineIntegral(r => SCoarse(v + r), scale) / (1 - a) : null });
         }
 
         ProjectionGrid? grid = null;
@@ -234,8 +231,8 @@ public static class ProjectionAnalysis
             for (int i = 0; i < g; i++)
             {
                 values[i] = lo + i * step;
-                cdf[i] = F(values[i]);
-                density[i] = qd.Density(values[i], 0.5 * step) / m;
+                cdf[i] = Math.Min(1.0, qd.Cdf(values[i], coarse: true) / m);
+                density[i] = qd.Density(values[i], 0.5 * step, coarse: true) / m;
             }
             grid = new ProjectionGrid
             {
@@ -271,25 +268,42 @@ public static class ProjectionAnalysis
     }
 
     /// <summary>
-    /// The p-quantile inf{q : F(q) ≥ p} by Brent's method on F(q) − p (on 1 − p − S(q) above the
-    /// median, where the survival function keeps the relative accuracy of small tail
-    /// probabilities), after widening the bracket geometrically until it holds the root.
+    /// The p-quantile inf{q : F(q) ≥ p}: the root of F(q) − p (of 1 − p − S(q) above the median,
+    /// where the survival function keeps the relative accuracy of small tail probabilities), after
+    /// widening the bracket geometrically until it holds the root, by the Illinois variant of
+    /// regula falsi (Dowell and Jarratt 1971), which keeps the bracket, converges superlinearly and
+    /// stops on the width of the bracket only (a CDF jump at an atom is found as the jump's location).
     /// </summary>
-    internal static double InvertCdf(Func<double, double> cdf, Func<double, double> survival, double p, double lo, double hi)
+    internal static double InvertCdf(Func<double, double> cdf, Func<double, double> survival, double p, double lo, double hi,
+        double relativeTolerance = 1e-12)
     {
         double G(double q) => p <= 0.5 ? cdf(q) - p : (1 - p) - survival(q);
         double width = Math.Max(hi - lo, 1e-9 * Math.Max(1.0, Math.Abs(hi)));
-        for (int i = 0; i < 200 && G(lo) > 0; i++) { lo -= width; width *= 2; }
+        double fa = G(lo);
+        for (int i = 0; i < 200 && fa > 0; i++) { hi = lo; lo -= width; width *= 2; fa = G(lo); }
         width = Math.Max(hi - lo, 1e-9);
-        for (int i = 0; i < 200 && G(hi) < 0; i++) { hi += width; width *= 2; }
-        double accuracy = 1e-10 * Math.Max(1e-300, Math.Max(Math.Abs(lo), Math.Abs(hi)) + (hi - lo));
-        if (Brent.TryFindRoot(G, lo, hi, accuracy, 200, out double root)) return root;
-        for (int i = 0; i < 200 && hi - lo > accuracy; i++)
+        double fb = G(hi);
+        for (int i = 0; i < 200 && fb < 0; i++) { lo = hi; fa = fb; hi += width; width *= 2; fb = G(hi); }
+        if (fa == 0) return lo;
+        if (fb == 0) return hi;
+        double a = lo, b = hi;
+        // Relative to the root, but never below 1e−12 of the starting bracket (a median of exactly 0).
+        double floor = relativeTolerance * (hi - lo);
+        for (int it = 0; it < 200; it++)
         {
-            double mid = 0.5 * (lo + hi);
-            if (G(mid) < 0) lo = mid; else hi = mid;
+            double tolerance = Math.Max(relativeTolerance * Math.Max(Math.Abs(a), Math.Abs(b)), floor);
+            if (Math.Abs(b - a) <= tolerance) break;
+            double c = (a * fb - b * fa) / (fb - fa);
+            // Fall back to bisection when the secant leaves the bracket or every third step, which bounds the worst case.
+            if (!(c > Math.Min(a, b) && c < Math.Max(a, b)) || it % 3 == 2) c = 0.5 * (a + b);
+            double fc = G(c);
+            if (fc == 0) return c;
+            if (Math.Sign(fc) != Math.Sign(fb)) { a = b; fa = fb; }
+            else fa *= 0.5;
+            b = c;
+            fb = fc;
         }
-        return 0.5 * (lo + hi);
+        return fb <= 0 ? Math.Max(a, b) : 0.5 * (a + b);
     }
 
     /// <summary>∫₀^∞ f(r) dr by the map r = s w/(1 − w), w ∈ (0, 1), and adaptive Gauss–Kronrod.</summary>
@@ -302,7 +316,7 @@ public static class ProjectionAnalysis
             double v = f(scale * w / one) * scale / (one * one);
             return double.IsFinite(v) ? v : 0.0;
         }
-        return AdaptiveQuadrature.Integrate(Mapped, breaks, 1e-11 * scale, 1e-9, maxPanels: 120);
+        return AdaptiveQuadrature.Integrate(Mapped, breaks, 1e-10 * scale, 1e-7, maxPanels: 60);
     }
 
     // ---------------------------------------------------------------- samples

@@ -19,8 +19,14 @@ public sealed class QuadratureDistribution
 {
     private static readonly double[] GradedBreaks =
     [
-        1e-300, 1e-30, 1e-13, 1e-9, 1e-6, 1e-4, 1e-3, 0.01, 0.05, 0.15, 0.3, 0.5, 0.7, 0.85, 0.95, 0.99, 0.999,
-        1 - 1e-4, 1 - 1e-6, 1 - 1e-9, 1 - 1e-13, 1 - 1.0 / (1L << 53),
+        1e-300, 1e-16, 1e-9, 1e-5, 1e-3, 0.02, 0.1, 0.3, 0.5, 0.7, 0.9, 0.98, 0.999,
+        1 - 1e-5, 1 - 1e-9, 1 - 1e-13, 1 - 1.0 / (1L << 53),
+    ];
+
+    // Fewer starting panels for the coarse tolerance: adaptivity refines only where needed.
+    private static readonly double[] CoarseBreaks =
+    [
+        1e-300, 1e-12, 1e-5, 0.02, 0.5, 0.98, 1 - 1e-5, 1 - 1e-12, 1 - 1.0 / (1L << 53),
     ];
 
     // Absolute tolerance far below any probability of interest, so that small tail probabilities
@@ -28,14 +34,15 @@ public sealed class QuadratureDistribution
     private const double AbsoluteTolerance = 1e-15;
     private const double RelativeTolerance = 1e-9;
 
+    // For figure grids and integrals over many CDF values, where 1e−7 is far below what shows.
+    private const double CoarseAbsoluteTolerance = 1e-12;
+    private const double CoarseRelativeTolerance = 1e-7;
+
     private readonly JointModel _model;
     private readonly InversionChain _chain;
-    private readonly double[] _breaks;
-    private readonly double[] _nodeU;        // 15 per initial panel
-    private readonly double[] _nodeX;
-    private readonly double[] _nodeSiblings; // chain.Length per node
+    private readonly PanelSet _fine;
+    private readonly PanelSet _coarse;
     private readonly int _maxIntervals;
-    private readonly int[] _nodeOrder;       // node indices sorted by u
     private readonly ICopula _flippedY;      // copula of (U, 1 − V)
 
     public QuadratureDistribution(JointModel model, InversionChain chain)
@@ -44,55 +51,101 @@ public sealed class QuadratureDistribution
         _chain = chain;
         _maxIntervals = Math.Max(4, chain.MaxIntervals);
         _flippedY = FlipV(model.Copula);
-        _breaks = BreakPoints(model, chain);
-        int panels = _breaks.Length - 1;
-        _nodeU = new double[15 * panels];
-        _nodeX = new double[15 * panels];
-        _nodeSiblings = new double[15 * panels * Math.Max(1, chain.Length)];
-        for (int p = 0; p < panels; p++)
-            AdaptiveQuadrature.Nodes(_breaks[p], _breaks[p + 1], _nodeU.AsSpan(15 * p, 15));
-        for (int i = 0; i < _nodeU.Length; i++)
+        var jumps = JumpPoints(model, chain);
+        _fine = new PanelSet(model, chain, GradedBreaks, jumps);
+        _coarse = new PanelSet(model, chain, CoarseBreaks, jumps);
+    }
+
+    /// <summary>
+    /// Starting panels (graded ends plus the jumps of <see cref="JumpPoints"/>, each with
+    /// geometric grading towards it) and x(u) and the sibling values at their 15 nodes, computed
+    /// once and reused by every integral, whatever q.
+    /// </summary>
+    private sealed class PanelSet
+    {
+        public readonly double[] Breaks;
+        public readonly double[] NodeU;        // 15 per panel
+        public readonly double[] NodeSiblings; // Width per node
+        public readonly int[] NodeOrder;       // node indices sorted by u
+        private readonly int _width, _length;
+
+        public PanelSet(JointModel model, InversionChain chain, double[] graded, List<double> jumps)
         {
-            _nodeX[i] = model.X.Quantile(_nodeU[i]);
-            chain.Siblings(_nodeX[i], _nodeSiblings.AsSpan(i * Math.Max(1, chain.Length), chain.Length));
+            var breaks = new List<double>(graded);
+            foreach (double root in jumps)
+            {
+                // Near a zero of a divisor or multiplier the integrand can have a spike as narrow as
+                // the tail probability being computed (the ratio's far tail lives within |x| ≲ |y/q|),
+                // which a coarse panel would step over; grade the panels geometrically towards it.
+                breaks.Add(root);
+                for (double d = 1e-2; d > 1e-13; d *= 1e-2)
+                {
+                    if (root - d > graded[0]) breaks.Add(root - d);
+                    if (root + d < graded[^1]) breaks.Add(root + d);
+                }
+            }
+            breaks.Sort();
+            var distinct = new List<double> { breaks[0] };
+            foreach (double b in breaks.Skip(1))
+                if (b - distinct[^1] > 1e-14) distinct.Add(b);
+            Breaks = distinct.ToArray();
+            _length = chain.Length;
+            _width = Math.Max(1, chain.Length);
+            int panels = Breaks.Length - 1;
+            NodeU = new double[15 * panels];
+            NodeSiblings = new double[15 * panels * _width];
+            for (int p = 0; p < panels; p++)
+                AdaptiveQuadrature.Nodes(Breaks[p], Breaks[p + 1], NodeU.AsSpan(15 * p, 15));
+            for (int i = 0; i < NodeU.Length; i++)
+                chain.Siblings(model.X.Quantile(NodeU[i]), NodeSiblings.AsSpan(i * _width, _length));
+            NodeOrder = Enumerable.Range(0, NodeU.Length).OrderBy(i => NodeU[i]).ToArray();
         }
-        _nodeOrder = Enumerable.Range(0, _nodeU.Length).OrderBy(i => _nodeU[i]).ToArray();
+
+        public ReadOnlySpan<double> Siblings(int node) => NodeSiblings.AsSpan(node * _width, _length);
     }
 
     /// <summary>P(Q ≤ q).</summary>
-    public double Cdf(double q) => Probability(new DualInterval(Dual.Constant(double.NegativeInfinity), new Dual(q, 1.0)));
+    public double Cdf(double q, bool coarse = false) => Probability(new DualInterval(Dual.Constant(double.NegativeInfinity), new Dual(q, 1.0)), coarse);
 
     /// <summary>P(Q &gt; q), integrated directly so that small tail probabilities keep their relative accuracy.</summary>
-    public double Survival(double q) => Probability(new DualInterval(new Dual(q, 1.0), Dual.Constant(double.PositiveInfinity)));
+    public double Survival(double q, bool coarse = false) => Probability(new DualInterval(new Dual(q, 1.0), Dual.Constant(double.PositiveInfinity)), coarse);
 
     /// <summary>P(Q is defined), below 1 when g is undefined on part of the support (log of a negative, 0/0).</summary>
     public double DefinedProbability() => Probability(new DualInterval(Dual.Constant(double.NegativeInfinity), Dual.Constant(double.PositiveInfinity)));
 
     /// <summary>f_Q(q) by the delta-function identity, or by differentiating the CDF where g has flat pieces in y.</summary>
-    public double Density(double q, double step)
+    public double Density(double q, double step, bool coarse = false)
     {
         if (_chain.HasFlatPieces)
             return Math.Max(0.0, (Cdf(q + step) - Cdf(q - step)) / (2 * step));
         var target = new DualInterval(Dual.Constant(double.NegativeInfinity), new Dual(q, 1.0));
-        return Math.Max(0.0, Integrate(target, u => DensityIntegrand(u, target), (i) => DensityIntegrand(i, target)));
+        var set = coarse ? _coarse : _fine;
+        return Math.Max(0.0, Integrate(target, set, u => DensityIntegrand(u, target),
+            i => ConditionalDensity(set.NodeU[i], set.Siblings(i), target), coarse));
     }
 
-    private double Probability(DualInterval target)
-        => Math.Clamp(Integrate(target, u => ProbabilityIntegrand(u, target), i => ProbabilityIntegrand(i, target)), 0.0, 1.0);
-
-    private double Integrate(DualInterval target, Func<double, double> atU, Func<int, double> atNode)
+    private double Probability(DualInterval target, bool coarse = false)
     {
-        var jumps = _chain.HasFlatPieces ? FlatPieceJumps(target) : null;
+        var set = coarse ? _coarse : _fine;
+        return Math.Clamp(Integrate(target, set, u => ProbabilityIntegrand(u, target),
+            i => ConditionalProbability(set.NodeU[i], set.Siblings(i), target), coarse), 0.0, 1.0);
+    }
+
+    private double Integrate(DualInterval target, PanelSet set, Func<double, double> atU, Func<int, double> atNode, bool coarse)
+    {
+        double absolute = coarse ? CoarseAbsoluteTolerance : AbsoluteTolerance;
+        double relative = coarse ? CoarseRelativeTolerance : RelativeTolerance;
+        var jumps = _chain.HasFlatPieces ? FlatPieceJumps(target, set) : null;
         if (jumps is { Count: > 0 })
         {
-            var breaks = new List<double>(_breaks);
+            var breaks = new List<double>(set.Breaks);
             breaks.AddRange(jumps);
             breaks.Sort();
-            return AdaptiveQuadrature.Integrate(atU, breaks.ToArray(), AbsoluteTolerance, RelativeTolerance);
+            return AdaptiveQuadrature.Integrate(atU, breaks.ToArray(), absolute, relative);
         }
-        var initial = new double[_nodeU.Length];
+        var initial = new double[set.NodeU.Length];
         for (int i = 0; i < initial.Length; i++) initial[i] = atNode(i);
-        return AdaptiveQuadrature.Integrate(atU, _breaks, AbsoluteTolerance, RelativeTolerance, initial: initial);
+        return AdaptiveQuadrature.Integrate(atU, set.Breaks, absolute, relative, initial: initial);
     }
 
     /// <summary>
@@ -102,7 +155,7 @@ public sealed class QuadratureDistribution
     /// precomputed nodes; each is then located by bisection in u and made a panel end, so no
     /// panel straddles a jump.
     /// </summary>
-    private List<double> FlatPieceJumps(DualInterval target)
+    private List<double> FlatPieceJumps(DualInterval target, PanelSet set)
     {
         var jumps = new List<double>();
         Span<DualInterval> a = stackalloc DualInterval[_maxIntervals];
@@ -113,13 +166,13 @@ public sealed class QuadratureDistribution
             int n = _chain.Preimage(target, s, r, t, out ulong mask);
             return (mask, n);
         }
-        var previous = Layout(Siblings(_nodeOrder[0]), a, b);
-        for (int k = 1; k < _nodeOrder.Length; k++)
+        var previous = Layout(set.Siblings(set.NodeOrder[0]), a, b);
+        for (int k = 1; k < set.NodeOrder.Length; k++)
         {
-            var current = Layout(Siblings(_nodeOrder[k]), a, b);
+            var current = Layout(set.Siblings(set.NodeOrder[k]), a, b);
             if (current != previous)
             {
-                double lo = _nodeU[_nodeOrder[k - 1]], hi = _nodeU[_nodeOrder[k]];
+                double lo = set.NodeU[set.NodeOrder[k - 1]], hi = set.NodeU[set.NodeOrder[k]];
                 for (int it = 0; it < 64 && hi - lo > 1e-15 * Math.Max(1.0, hi); it++)
                 {
                     double mid = 0.5 * (lo + hi);
@@ -133,9 +186,6 @@ public sealed class QuadratureDistribution
         return jumps;
     }
 
-    private double ProbabilityIntegrand(int node, DualInterval target)
-        => ConditionalProbability(_nodeU[node], Siblings(node), target);
-
     private double ProbabilityIntegrand(double u, DualInterval target)
     {
         Span<double> siblings = stackalloc double[Math.Max(1, _chain.Length)];
@@ -143,20 +193,11 @@ public sealed class QuadratureDistribution
         return ConditionalProbability(u, siblings, target);
     }
 
-    private double DensityIntegrand(int node, DualInterval target)
-        => ConditionalDensity(_nodeU[node], Siblings(node), target);
-
     private double DensityIntegrand(double u, DualInterval target)
     {
         Span<double> siblings = stackalloc double[Math.Max(1, _chain.Length)];
         _chain.Siblings(_model.X.Quantile(u), siblings);
         return ConditionalDensity(u, siblings, target);
-    }
-
-    private ReadOnlySpan<double> Siblings(int node)
-    {
-        int w = Math.Max(1, _chain.Length);
-        return _nodeSiblings.AsSpan(node * w, _chain.Length);
     }
 
     /// <summary>
@@ -186,9 +227,10 @@ public sealed class QuadratureDistribution
         for (int k = 0; k < n; k++)
         {
             double lo = intervals[k].Lo.Value, hi = intervals[k].Hi.Value;
-            p += double.IsFinite(lo) && _model.Y.Cdf(lo) > 0.5
+            double vLo = double.IsFinite(lo) ? _model.Y.Cdf(lo) : (lo < 0 ? 0.0 : 1.0);
+            p += vLo > 0.5
                 ? ConditionalSurvival(u, lo) - ConditionalSurvival(u, hi)
-                : ConditionalCdf(u, hi) - ConditionalCdf(u, lo);
+                : ConditionalCdf(u, hi) - ConditionalCdfAt(u, vLo);
         }
         return p;
     }
@@ -206,7 +248,11 @@ public sealed class QuadratureDistribution
     {
         if (double.IsNegativeInfinity(y)) return 0.0;
         if (double.IsPositiveInfinity(y)) return 1.0;
-        double v = _model.Y.Cdf(y);
+        return ConditionalCdfAt(u, _model.Y.Cdf(y));
+    }
+
+    private double ConditionalCdfAt(double u, double v)
+    {
         if (v <= 0) return 0.0;
         if (v >= 1) return 1.0;
         return Math.Clamp(_model.Copula.ConditionalCdf(u, v), 0.0, 1.0);
@@ -235,15 +281,15 @@ public sealed class QuadratureDistribution
     }
 
     /// <summary>
-    /// The graded panel ends plus every u where a sibling that decides the branch layout
-    /// (multiplier, divisor, base, exponent) crosses its critical level, found by a scan on the
-    /// graded grid and bisection.
+    /// Every u where a sibling that decides the branch layout (multiplier, divisor, base,
+    /// exponent) crosses its critical level, so that the preimage jumps: found by a scan in the
+    /// normal-score scale and bisection.
     /// </summary>
-    private static double[] BreakPoints(JointModel model, InversionChain chain)
+    private static List<double> JumpPoints(JointModel model, InversionChain chain)
     {
-        var breaks = new List<double>(GradedBreaks);
+        var breaks = new List<double>();
         var levels = chain.JumpLevels().ToArray();
-        if (levels.Length == 0) return breaks.ToArray();
+        if (levels.Length == 0) return breaks;
         const int scan = 400;
         var us = new double[scan + 1];
         for (int i = 0; i <= scan; i++)
@@ -252,7 +298,6 @@ public sealed class QuadratureDistribution
             double z = -7.0 + 14.0 * i / scan;
             us[i] = 0.5 * MathNet.Numerics.SpecialFunctions.Erfc(-z / Math.Sqrt(2));
         }
-        Span<double> s = stackalloc double[chain.Length];
         foreach (var (step, level) in levels)
         {
             double Sibling(double u)
@@ -279,24 +324,6 @@ public sealed class QuadratureDistribution
                 prev = cur;
             }
         }
-        // Grade panels geometrically towards every jump: near a zero of a divisor or multiplier
-        // the integrand can have a spike as narrow as the tail probability being computed
-        // (the ratio's far tail lives entirely within |x| ≲ |y/q|), which a coarse panel would step over.
-        int found = breaks.Count;
-        for (int i = GradedBreaks.Length; i < found; i++)
-        {
-            double root = breaks[i];
-            for (double d = 1e-2; d > 1e-13; d *= 1e-2)
-            {
-                if (root - d > GradedBreaks[0]) breaks.Add(root - d);
-                if (root + d < GradedBreaks[^1]) breaks.Add(root + d);
-            }
-        }
-        breaks.Sort();
-        // Drop near-duplicates so no panel is degenerate.
-        var distinct = new List<double> { breaks[0] };
-        foreach (double b in breaks.Skip(1))
-            if (b - distinct[^1] > 1e-14) distinct.Add(b);
-        return distinct.ToArray();
+        return breaks;
     }
 }

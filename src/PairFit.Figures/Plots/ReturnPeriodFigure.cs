@@ -1,3 +1,4 @@
+using MathNet.Numerics.RootFinding;
 using OxyPlot;
 using OxyPlot.Axes;
 using OxyPlot.Series;
@@ -88,7 +89,7 @@ public static class ReturnPeriodFigure
 
     /// <summary>
     /// Points (x, y) with exceedance probability p: for each x on a grid, the v solving the
-    /// monotone equation in v by bisection (60 halvings reach double precision on (0, 1)).
+    /// monotone equation in v (Brent's method to 1e−12 in v).
     /// </summary>
     internal static (double[] X, double[] Y) Isoline(JointModel model, Kind kind, double p, double[] kendallLevels, double xLo, double xHi)
     {
@@ -96,13 +97,13 @@ public static class ReturnPeriodFigure
         // a uniform grid in x, plus points crowding the vertical asymptote u = a of the curve
         // (a = 1 − p for AND and OR, t* for Kendall) so the bend into it is drawn smoothly
         double asymptote = kind == Kind.Kendall ? tStar : 1 - p;
-        const int points = 240, crowd = 48;
+        const int points = 160, crowd = 32;
         var grid = new List<double>(points + 2 * crowd);
         for (int i = 0; i < points; i++) grid.Add(xLo + (xHi - xLo) * i / (points - 1));
         double gap = Math.Min(asymptote, 1 - asymptote);
         for (int j = 1; j <= crowd; j++)
         {
-            double d = gap * Math.Pow(10, -j / 8.0);
+            double d = gap * Math.Pow(10, -j / 5.0);
             foreach (double uu in (double[])[asymptote - d, asymptote + d])
             {
                 double xx = model.X.Quantile(uu);
@@ -124,14 +125,12 @@ public static class ReturnPeriodFigure
                 Kind.Or => v => p - (1 - copula.Cdf(u, v)),
                 _ => v => copula.Cdf(u, v) - tStar,
             };
-            double lo = 1e-12, hi = 1 - 1e-12, glo = g(lo), ghi = g(hi);
-            if (Math.Sign(glo) == Math.Sign(ghi)) continue;
-            for (int it = 0; it < 60; it++)
-            {
-                double mid = 0.5 * (lo + hi), gm = g(mid);
-                if (Math.Sign(gm) == Math.Sign(glo)) { lo = mid; glo = gm; } else hi = mid;
-            }
-            double y = model.Y.Quantile(0.5 * (lo + hi));
+            double lo = 1e-12, hi = 1 - 1e-12;
+            if (Math.Sign(g(lo)) == Math.Sign(g(hi))) continue;
+            // Brent's method: ~10 copula CDF calls per point instead of ~40 for bisection, which
+            // matters for families whose CDF is itself a quadrature (Gaussian, Student t)
+            if (!Brent.TryFindRoot(g, lo, hi, 1e-12, 100, out double root)) continue;
+            double y = model.Y.Quantile(root);
             if (!double.IsFinite(y)) continue;
             xs.Add(x);
             ys.Add(y);

@@ -20,8 +20,7 @@ public static class FigureExporter
     /// <summary>Page size in device-independent units for these options.</summary>
     public static (double Width, double Height) PageSizeDip(Figure figure, FigureOptions options)
     {
-        double wMm = options.WidthMm, hMm = options.HeightMm > 0 ? options.HeightMm : options.WidthMm * figure.Aspect;
-        return (wMm / MmPerInch * DipPerInch, hMm / MmPerInch * DipPerInch);
+        return (options.WidthMm / MmPerInch * DipPerInch, HeightMm(figure, options) / MmPerInch * DipPerInch);
     }
 
     /// <summary>PNG size in pixels for these options: the physical size at the chosen DPI.</summary>
@@ -80,13 +79,40 @@ public static class FigureExporter
     public static void WriteSvg(Figure figure, FigureOptions options, Stream stream)
     {
         var (w, h) = PageSizeDip(figure, options);
-        // The SVG canvas writes on dispose; wrap the stream so that disposal order is explicit.
-        using (var managed = new SKManagedWStream(stream, disposeManagedStream: false))
+        using var buffer = new MemoryStream();
+        // the SVG canvas writes its document when disposed
+        using (var managed = new SKManagedWStream(buffer, disposeManagedStream: false))
         using (var canvas = SKSvgCanvas.Create(new SKRect(0, 0, (float)w, (float)h), managed))
         {
             Draw(figure, options, canvas, 1.0, RenderTarget.VectorGraphic);
         }
+        string svg = System.Text.Encoding.UTF8.GetString(buffer.GetBuffer(), 0, (int)buffer.Length);
+        var bytes = System.Text.Encoding.UTF8.GetBytes(WithPhysicalSize(svg, options.WidthMm, HeightMm(figure, options), w, h));
+        stream.Write(bytes);
     }
+
+    /// <summary>
+    /// Skia writes width/height in CSS pixels; a figure for print should carry its size in
+    /// millimetres, with the drawing units kept through a viewBox (SVG 1.1, section 7.7).
+    /// </summary>
+    internal static string WithPhysicalSize(string svg, double widthMm, double heightMm, double widthUnits, double heightUnits)
+    {
+        int start = svg.IndexOf("<svg", StringComparison.Ordinal);
+        int end = start < 0 ? -1 : svg.IndexOf('>', start);
+        if (end < 0) return svg;
+        string tag = svg[start..end];
+        var width = System.Text.RegularExpressions.Regex.Match(tag, "width=\"[0-9.]+\"");
+        var height = System.Text.RegularExpressions.Regex.Match(tag, "height=\"[0-9.]+\"");
+        if (!width.Success || !height.Success) return svg;
+        var inv = System.Globalization.CultureInfo.InvariantCulture;
+        string fixedTag = tag
+            .Replace(width.Value, $"width=\"{widthMm.ToString("0.##", inv)}mm\"")
+            .Replace(height.Value, $"height=\"{heightMm.ToString("0.##", inv)}mm\" viewBox=\"0 0 {widthUnits.ToString("0.###", inv)} {heightUnits.ToString("0.###", inv)}\"");
+        return svg[..start] + fixedTag + svg[end..];
+    }
+
+    private static double HeightMm(Figure figure, FigureOptions options)
+        => options.HeightMm > 0 ? options.HeightMm : options.WidthMm * figure.Aspect;
 
     public static void WritePdf(Figure figure, FigureOptions options, Stream stream)
     {

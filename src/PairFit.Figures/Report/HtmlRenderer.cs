@@ -25,6 +25,7 @@ public static class HtmlRenderer
         figure img { max-width: 100%; height: auto; border: 1px solid #ddd; }
         figcaption { font-size: .9rem; color: #333; }
         .links { font-size: .85rem; }
+        ol.notes { list-style: none; padding-left: 0; margin-top: -.8rem; font-size: .8rem; color: #333; }
         """;
 
     public static string Render(ReportDocument doc, Func<FigureFile, byte[]?> readFigure)
@@ -71,6 +72,12 @@ public static class HtmlRenderer
             sb.Append("</tr>\n");
         }
         sb.Append("</tbody>\n</table>\n");
+        if (t.Notes.Count > 0)
+        {
+            sb.Append("<ol class=\"notes\">");
+            foreach (var note in t.Notes) sb.Append("<li>").Append(E(note)).Append("</li>");
+            sb.Append("</ol>\n");
+        }
     }
 
     private static void Figure(StringBuilder sb, FigureBlock f, Func<FigureFile, byte[]?> readFigure)

@@ -27,7 +27,14 @@ public static class LatexTables
                 for (int c = 0; c < cells.Length; c++) cells[c] = Escape(c < row.Count ? row[c] : "");
                 sb.Append(string.Join(" & ", cells)).Append(" \\\\\n");
             }
-            sb.Append("\\bottomrule\n\\end{tabular}\n\\end{table}\n");
+            sb.Append("\\bottomrule\n\\end{tabular}\n");
+            if (t.Notes.Count > 0)
+            {
+                sb.Append("\\par\\smallskip\n{\\footnotesize\n");
+                foreach (var note in t.Notes) sb.Append(Escape(note)).Append("\\\\\n");
+                sb.Append("}\n");
+            }
+            sb.Append("\\end{table}\n");
         }
         return sb.ToString();
     }

@@ -46,6 +46,8 @@ public static class MarkdownRenderer
             sb.Append('\n');
         }
         sb.Append('\n');
+        foreach (var note in t.Notes) sb.Append(Escape(note)).Append("  \n");
+        if (t.Notes.Count > 0) sb.Append('\n');
     }
 
     /// <summary>

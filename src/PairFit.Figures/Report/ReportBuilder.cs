@@ -54,7 +54,8 @@ public static class ReportBuilder
         doc.Table(new ReportTable("Empirical tail dependence", ["lower", "upper", "estimator", "threshold"],
             [[Num(dep.Tail.Lower), Num(dep.Tail.Upper), dep.Tail.Estimator ?? "–", Num(dep.Tail.Threshold)]]));
 
-        Section(doc, "Marginal distributions", results.Marginals, fitTables: true);
+        var names = new Dictionary<string, string> { ["x"] = $"x: {input.XColumn}", ["y"] = $"y: {input.YColumn}" };
+        Section(doc, "Marginal distributions", results.Marginals, fitTables: true, names: names);
         Section(doc, "Copula", results.Copula, fitTables: true);
 
         if (results.Model is { } model)
@@ -133,16 +134,18 @@ public static class ReportBuilder
         => v is { } d && double.IsFinite(d) ? (d < 1e-16 ? "< 1e-16" : d.ToString("G3", CultureInfo.InvariantCulture)) : "–";
 
     /// <summary>Lays out any results section from its JSON form.</summary>
-    private static void Section(ReportDocument doc, string heading, object? section, bool fitTables, int level = 2)
+    private static void Section(ReportDocument doc, string heading, object? section, bool fitTables, int level = 2,
+        IReadOnlyDictionary<string, string>? names = null)
     {
         if (section is null) return;
         var node = JsonSerializer.SerializeToNode(section, section.GetType(), ResultsFile.Options);
         if (node is not JsonObject obj || obj.Count == 0) return;
         doc.Heading(level, heading);
-        Object(doc, heading, obj, fitTables, level);
+        Object(doc, heading, obj, fitTables, level, names);
     }
 
-    private static void Object(ReportDocument doc, string caption, JsonObject obj, bool fitTables, int level)
+    private static void Object(ReportDocument doc, string caption, JsonObject obj, bool fitTables, int level,
+        IReadOnlyDictionary<string, string>? names = null)
     {
         var scalars = new List<IReadOnlyList<string>>();
         var nested = new List<(string Name, JsonNode Node)>();
@@ -153,14 +156,15 @@ public static class ReportBuilder
             else nested.Add((key, value));
         }
         if (scalars.Count > 0) doc.Table(new ReportTable(caption, ["item", "value"], scalars));
-        foreach (var (name, node) in nested)
+        foreach (var (key, node) in nested)
         {
-            string sub = $"{caption}: {Words(name)}";
+            string name = names is not null && names.TryGetValue(key, out var shown) ? shown : Words(key);
+            string sub = $"{caption}: {name}";
             if (node is JsonArray arr && arr.Count > 0 && arr[0] is JsonObject)
                 RecordTable(doc, sub, arr, fitTables);
             else if (node is JsonObject o && level < 4)
             {
-                doc.Heading(Math.Min(level + 1, 4), Words(name));
+                doc.Heading(Math.Min(level + 1, 4), name);
                 Object(doc, sub, o, fitTables, level + 1);
             }
             else if (node is JsonObject o2)
@@ -168,24 +172,69 @@ public static class ReportBuilder
         }
     }
 
-    /// <summary>One row per record; columns are the union of the records' scalar-like fields in first-seen order.</summary>
+    /// <summary>Text values longer than this go to the table's numbered notes instead of a cell.</summary>
+    private const int LongText = 48;
+
+    /// <summary>
+    /// One row per record. Columns are the union of the records' scalar fields in first-seen order;
+    /// a nested flat record (such as a goodness-of-fit block) is spread into its own columns; long
+    /// texts become numbered notes under the table.
+    /// </summary>
     private static void RecordTable(ReportDocument doc, string caption, JsonArray arr, bool fitTables)
     {
-        var columns = new List<string>();
+        var columns = new List<(string Key, string? Inner)>();
         foreach (var item in arr)
             if (item is JsonObject o)
                 foreach (var (k, v) in o)
-                    if (v is not null && IsScalarLike(v) && !columns.Contains(k)) columns.Add(k);
+                {
+                    if (v is JsonObject inner && inner.All(kv => kv.Value is JsonValue) && !IsNameToNumberMap(inner))
+                    {
+                        foreach (var (ik, _) in inner)
+                            if (!columns.Contains((k, ik)))
+                            {
+                                // keep the columns of one nested record together
+                                int last = columns.FindLastIndex(c => c.Key == k);
+                                columns.Insert(last < 0 ? columns.Count : last + 1, (k, ik));
+                            }
+                    }
+                    else if (v is not null && IsScalarLike(v) && !columns.Contains((k, null))) columns.Add((k, null));
+                }
+        var notes = new List<string>();
         var rows = new List<IReadOnlyList<string>>();
         foreach (var item in arr)
         {
             if (item is not JsonObject o) continue;
             var cells = new string[columns.Count];
             for (int c = 0; c < columns.Count; c++)
-                cells[c] = o.TryGetPropertyValue(columns[c], out var v) && v is not null ? Cell(v) : "–";
+            {
+                var (key, inner) = columns[c];
+                JsonNode? v = o.TryGetPropertyValue(key, out var outer) ? outer : null;
+                if (inner is not null) v = v is JsonObject io && io.TryGetPropertyValue(inner, out var iv) ? iv : null;
+                string text = v is null ? "–" : Cell(v);
+                if (text.Length > LongText && v is JsonValue)
+                {
+                    int k = notes.IndexOf(text);
+                    if (k < 0) { notes.Add(text); k = notes.Count - 1; }
+                    text = $"[{k + 1}]";
+                }
+                cells[c] = text;
+            }
             rows.Add(cells);
         }
-        doc.Table(new ReportTable(caption, columns.ConvertAll(Words), rows, IsFitTable: fitTables));
+        // a nested column keeps its record's name unless its own name is specific (KS, AD p, ...)
+        var header = columns.ConvertAll(c => c.Inner is null ? Words(c.Key) : SelfExplaining.Contains(c.Inner) ? Words(c.Inner) : $"{Words(c.Key)} {Words(c.Inner)}");
+        doc.Table(new ReportTable(caption, header, rows, IsFitTable: fitTables)
+        {
+            Notes = notes.ConvertAll(n => $"[{notes.IndexOf(n) + 1}] {n}"),
+        });
+    }
+
+    /// <summary>Parameter and standard-error maps stay in one cell ("theta = 1.87"); other flat records are spread out.</summary>
+    private static bool IsNameToNumberMap(JsonObject o)
+    {
+        foreach (var (_, v) in o)
+            if (v is not null && !(v is JsonValue jv && jv.TryGetValue(out double _))) return false;
+        return o.Count <= 6 && o.Count > 0 && !o.ContainsKey("statistic") && !o.ContainsKey("pValue") && !o.ContainsKey("ksStatistic");
     }
 
     /// <summary>Values that fit in one cell: numbers, strings, booleans, flat number/string lists and flat name→number maps.</summary>
@@ -205,19 +254,25 @@ public static class ReportBuilder
             case JsonValue v when v.TryGetValue(out bool b): return b ? "yes" : "no";
             case JsonValue v when v.TryGetValue(out string? s): return s ?? "";
             case JsonArray a: return "[" + string.Join(", ", a.Select(x => x is null ? "–" : Cell(x))) + "]";
-            case JsonObject o: return string.Join(", ", o.Select(kv => $"{kv.Key} = {(kv.Value is null ? "–" : Cell(kv.Value))}"));
+            case JsonObject o when IsNameToNumberMap(o): return string.Join(", ", o.Select(kv => $"{kv.Key} = {(kv.Value is null ? "–" : Cell(kv.Value))}"));
+            case JsonObject o: return string.Join(", ", o.Select(kv => $"{Words(kv.Key)} = {(kv.Value is null ? "–" : Cell(kv.Value))}"));
             default: return node.ToJsonString();
         }
     }
 
+    private static readonly HashSet<string> SelfExplaining = ["ksStatistic", "ksPValue", "adStatistic", "adPValue", "cvmStatistic", "cvmPValue", "pValueNote"];
+
+    private static readonly Dictionary<string, string> KnownWords = new(StringComparer.OrdinalIgnoreCase)
+    {
+        ["aic"] = "AIC", ["bic"] = "BIC", ["deltaAic"] = "ΔAIC", ["pValue"] = "p-value", ["ci95"] = "95 % interval", ["gof"] = "GoF",
+        ["ksStatistic"] = "KS", ["ksPValue"] = "KS p", ["adStatistic"] = "AD", ["adPValue"] = "AD p",
+        ["cvmStatistic"] = "CvM", ["cvmPValue"] = "CvM p", ["pValueNote"] = "p-value note",
+    };
+
     /// <summary>"logLikelihood" → "log likelihood", "aic" → "AIC".</summary>
     internal static string Words(string camel)
     {
-        var known = new Dictionary<string, string>(StringComparer.OrdinalIgnoreCase)
-        {
-            ["aic"] = "AIC", ["bic"] = "BIC", ["deltaAic"] = "ΔAIC", ["pValue"] = "p-value", ["ci95"] = "95 % interval",
-        };
-        if (known.TryGetValue(camel, out var k)) return k;
+        if (KnownWords.TryGetValue(camel, out var k)) return k;
         var sb = new StringBuilder(camel.Length + 4);
         for (int i = 0; i < camel.Length; i++)
         {

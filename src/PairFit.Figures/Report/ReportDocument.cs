@@ -23,9 +23,14 @@ public sealed record TableBlock(ReportTable Table) : ReportBlock;
 /// <summary>A figure shown in the report (<paramref name="Shown"/>), with links to its other formats and its data.</summary>
 public sealed record FigureBlock(FigureFile Shown, IReadOnlyList<FigureFile> Alternatives) : ReportBlock;
 
-/// <summary>A plain table: caption, header and rows of text cells. <see cref="IsFitTable"/> tables also go to tables.tex.</summary>
+/// <summary>
+/// A plain table: caption, header and rows of text cells, and numbered notes that cells refer to
+/// as "[k]" (long texts are kept out of the cells). <see cref="IsFitTable"/> tables also go to tables.tex.
+/// </summary>
 public sealed record ReportTable(string Caption, IReadOnlyList<string> Header, IReadOnlyList<IReadOnlyList<string>> Rows, bool IsFitTable = false)
 {
+    public IReadOnlyList<string> Notes { get; init; } = [];
+
     /// <summary>Columns holding numbers are right-aligned.</summary>
     public bool IsNumericColumn(int column)
     {

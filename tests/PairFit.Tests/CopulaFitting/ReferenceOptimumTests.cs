@@ -55,7 +55,7 @@ public class ReferenceOptimumTests
     public void LogLikelihoodAtTheReferenceOptimumMatchesScipy()
     {
         // Pseudo-observations (our ranks) and the summed log density at SciPy's optimum: equal to the reference's
-        // maximum to ~1e-10 relative (both sum 400 terms of size ~1 in double precision).
+        // maximum to ~1e-10 relative (both sum 400 terms of size ~1 in double precision; see below for Student t).
         foreach (var dataset in new[] { "positive", "negative", "heavy" })
         {
             var sample = FittingTestData.ReadCsv($"data_{dataset}.csv");
@@ -66,7 +66,10 @@ public class ReferenceOptimumTests
                 if (family is null || !WithinRange(family, r.Parameters)) continue;
                 var copula = RotatedCopula.Rotate(family.Create(r.Parameters), r.Rotation);
                 double ll = CopulaLogLikelihood.Sum(copula, u, v);
-                Assert.True(Math.Abs(ll - r.LogLikelihood) <= 1e-10 * Math.Max(1, Math.Abs(r.LogLikelihood)),
+                // Student t goes through an iterated t quantile and the regularized incomplete beta (SciPy's and ours),
+                // each good to ~1e-12 relative per point; over 400 terms that is ~1e-10 relative, seen 2e-10: allow 1e-9.
+                double tolerance = r.Family == "student-t" ? 1e-9 : 1e-10;
+                Assert.True(Math.Abs(ll - r.LogLikelihood) <= tolerance * Math.Max(1, Math.Abs(r.LogLikelihood)),
                     $"{dataset} {r.Family} {r.Rotation}: {ll:R} vs {r.LogLikelihood:R}");
             }
         }

@@ -3,11 +3,8 @@ using PairFit.Cli;
 namespace PairFit.Tests.Data;
 
 /// <summary>Bad input through the command line: exit code 2, one line naming the problem, no stack trace.</summary>
-public class CliBadInputTests : IDisposable
+public class CliBadInputTests : CsvFileTests
 {
-    private readonly TempCsv _files = new();
-    public void Dispose() => _files.Dispose();
-
     private static (int Code, string Out, string Err) Run(params string[] args)
     {
         var o = new StringWriter();
@@ -33,20 +30,23 @@ public class CliBadInputTests : IDisposable
     private static void AssertOneLineBadInput((int Code, string Out, string Err) r, string expected)
     {
         Assert.Equal(PairFitCli.ExitBadInput, r.Code);
-        string err = r.Err.TrimEnd();
-        Assert.DoesNotContain('\n', err);           // exactly one line
-        Assert.Contains(expected, err);
-        Assert.StartsWith("pairfit: error: ", err);
+        var lines = r.Err.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries);
+        // Exactly one error line that names the problem; anything else on stderr is a progress
+        // line of the form "pairfit: <stage>..." written before the problem was found.
+        var errors = lines.Where(l => l.StartsWith("pairfit: error: ", StringComparison.Ordinal)).ToArray();
+        Assert.Single(errors);
+        Assert.Contains(expected, errors[0]);
+        Assert.All(lines.Except(errors), l => Assert.Matches(@"^pairfit: [^\n]*\.\.\.$", l));
         Assert.DoesNotContain("   at ", r.Err + r.Out);
+        Assert.DoesNotContain("Exception", r.Err);
     }
 
     [Theory]
     [MemberData(nameof(AnalyzeCases))]
     public void AnalyzeRefusesBadInputWithOneLine(string name, string? content, string yColumn, string expected)
     {
-        string path = content is null ? _files.PathOf("absent.csv") : _files.Write(name.Replace(' ', '-') + ".csv", content);
+        string path = content is null ? Files.PathOf("absent.csv") : Files.Write(name.Replace(' ', '-') + ".csv", content);
         var r = Run("analyze", path, "--x", "a", "--y", yColumn);
-        // analyze prints one progress line ("pairfit: dependence measures...") only after reading succeeded.
         AssertOneLineBadInput(r, expected);
     }
 
@@ -58,21 +58,21 @@ public class CliBadInputTests : IDisposable
     [InlineData("ambiguous header", "a;b,c\n1;2,3\n", "mixes delimiters")]
     public void DescribeRefusesBadInputWithOneLine(string name, string? content, string expected)
     {
-        string path = content is null ? _files.PathOf("absent.csv") : _files.Write(name.Replace(' ', '-') + ".csv", content);
+        string path = content is null ? Files.PathOf("absent.csv") : Files.Write(name.Replace(' ', '-') + ".csv", content);
         AssertOneLineBadInput(Run("describe", path), expected);
     }
 
     [Fact]
     public void BadDelimiterOptionIsOneLine()
     {
-        string path = _files.Write("ok.csv", "a,b\n1,2\n3,4\n");
+        string path = Files.Write("ok.csv", "a,b\n1,2\n3,4\n");
         AssertOneLineBadInput(Run("describe", path, "--delimiter", "pipe-ish"), "--delimiter");
     }
 
     [Fact]
     public void DescribePrintsEveryColumnWithItsType()
     {
-        string path = _files.Write("ok.csv", "site,rain,flow\nA,1.5,2\nB,NA,3\nC,4.5,-9999\n");
+        string path = Files.Write("ok.csv", "site,rain,flow\nA,1.5,2\nB,NA,3\nC,4.5,-9999\n");
         var (code, output, _) = Run("describe", path, "--missing", "-9999");
         Assert.Equal(0, code);
         Assert.Contains("3 data row(s), 3 column(s); delimiter: comma", output);

@@ -3,11 +3,8 @@ using PairFit.Core.Data;
 
 namespace PairFit.Tests.Data;
 
-public class CsvDescriptionTests : IDisposable
+public class CsvDescriptionTests : CsvFileTests
 {
-    private readonly TempCsv _files = new();
-    public void Dispose() => _files.Dispose();
-
     [Fact]
     public void MatchesScipyOnTheSampleFile()
     {
@@ -48,7 +45,7 @@ public class CsvDescriptionTests : IDisposable
     [Fact]
     public void CountsEmptyAndNonFiniteColumns()
     {
-        var d = CsvDescription.Describe(_files.Write("d.csv", "a,b,c\n1,,inf\n2,NA,3\n"), new CsvOptions());
+        var d = CsvDescription.Describe(Files.Write("d.csv", "a,b,c\n1,,inf\n2,NA,3\n"), new CsvOptions());
         Assert.Equal("empty", d.Columns[1].Type);
         Assert.Equal(2, d.Columns[1].Missing);
         Assert.Equal(1, d.Columns[2].NonFinite);

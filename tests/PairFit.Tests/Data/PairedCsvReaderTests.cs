@@ -4,13 +4,10 @@ using PairFit.Core.Data;
 
 namespace PairFit.Tests.Data;
 
-public class PairedCsvReaderTests : IDisposable
+public class PairedCsvReaderTests : CsvFileTests
 {
-    private readonly TempCsv _files = new();
-    public void Dispose() => _files.Dispose();
-
     private PairedSample Read(string text, string x = "a", string y = "b", CsvOptions? options = null, bool bom = false)
-        => PairedCsvReader.Read(_files.Write("data.csv", text, bom), new ColumnSelector(x), new ColumnSelector(y), options ?? new CsvOptions());
+        => PairedCsvReader.Read(Files.Write("data.csv", text, bom), new ColumnSelector(x), new ColumnSelector(y), options ?? new CsvOptions());
 
     private string ReadError(string text, string x = "a", string y = "b", CsvOptions? options = null)
         => Assert.Throws<PairFitInputException>(() => Read(text, x, y, options)).Message;
@@ -132,12 +129,13 @@ public class PairedCsvReaderTests : IDisposable
     public void ExplainsEveryKindOfBadFile()
     {
         Assert.Contains("does not exist", Assert.Throws<PairFitInputException>(() =>
-            PairedCsvReader.Read(_files.PathOf("nope.csv"), new("a"), new("b"), new())).Message);
+            PairedCsvReader.Read(Files.PathOf("nope.csv"), new("a"), new("b"), new())).Message);
         Assert.Contains("is empty", ReadError(""));
         Assert.Contains("only blank lines", ReadError("\n\n  \n"));
         Assert.Contains("no data rows", ReadError("a,b\n"));
         Assert.Contains("the columns are: a, b, c", ReadError("a,b,c\n1,2,3\n", "a", "rain"));
         Assert.Contains("has 3 column(s)", ReadError("a,b,c\n1,2,3\n", "a", "4"));
+        Assert.Contains("Only one column was found with the comma delimiter", ReadError("a b\n1 2\n3 4\n"));
         Assert.Contains("holds no numbers", ReadError("a,b\n1,x\n2,y\n3,z\n"));
         Assert.Contains("missing in all 2 data rows", ReadError("a,b\n1,\n2,NA\n"));
         Assert.Contains("only one usable row", ReadError("a,b\n1,2\n3,\n"));

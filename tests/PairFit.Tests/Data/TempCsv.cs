@@ -22,3 +22,14 @@ internal sealed class TempCsv : IDisposable
         try { Directory.Delete(_folder, recursive: true); } catch (IOException) { }
     }
 }
+
+/// <summary>Base of test classes that write CSV files: one temporary folder per test, removed afterwards.</summary>
+public abstract class CsvFileTests : IDisposable
+{
+    internal TempCsv Files { get; } = new();
+    public void Dispose()
+    {
+        Files.Dispose();
+        GC.SuppressFinalize(this);
+    }
+}

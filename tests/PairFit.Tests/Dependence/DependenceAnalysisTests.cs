@@ -92,4 +92,28 @@ public class DependenceAnalysisTests
 internal static class CorrelationInferenceProbe
 {
     public static double[] Fisher(double r, double se) => CorrelationInference.FisherInterval(r, se);
+    public static double NormalPValue(double z) => CorrelationInference.NormalPValue(z);
+}
+
+public class PearsonScalingTests
+{
+    [Fact]
+    public void ExtremeMagnitudesNeitherOverflowNorUnderflow()
+    {
+        // r is invariant under x → a·x + b (a > 0); the power-of-two scaling keeps the squares finite.
+        double[] x = [1, 2, 3, 4, 6];
+        double[] y = [2, 1, 5, 4, 7];
+        double r = PearsonCorrelation.Estimate(x, y);
+        Assert.Equal(r, PearsonCorrelation.Estimate(x.Select(v => v * 1e300).ToArray(), y), 14);
+        Assert.Equal(r, PearsonCorrelation.Estimate(x, y.Select(v => v * 1e-300).ToArray()), 14);
+        Assert.True(double.IsNaN(PearsonCorrelation.Estimate([1, double.PositiveInfinity, 3], [1, 2, 3])));
+    }
+
+    [Fact]
+    public void NonFiniteInMemorySampleIsUndefinedNotNaN()
+    {
+        var d = DependenceAnalysis.Compute(new PairedSample([1, double.PositiveInfinity, 3], [1, 2, 3], "a", "b"));
+        Assert.Null(d.Pearson.Estimate);
+        Assert.Contains("infinite", d.Pearson.Note);
+    }
 }

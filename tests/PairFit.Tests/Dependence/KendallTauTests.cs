@@ -110,6 +110,33 @@ public class KendallTauTests
     }
 
     [Fact]
+    public void ExactPValueMatchesFullPermutationEnumeration()
+    {
+        // Independent check: enumerate all n! orderings of y for n = 6 and 7 and count |S'| ≥ |S|.
+        foreach (int n in new[] { 6, 7 })
+        {
+            var x = Enumerable.Range(1, n).Select(i => (double)i).ToArray();
+            var perms = Permutations(Enumerable.Range(1, n).Select(i => (double)i).ToArray()).ToList();
+            var scores = perms.Select(p => Math.Abs(KendallTau.Count(x, p).S)).ToArray();
+            foreach (var y in perms.Take(200))
+            {
+                var c = KendallTau.Count(x, y);
+                double expected = (double)scores.Count(s => s >= Math.Abs(c.S)) / perms.Count;
+                Assert.Equal(expected, KendallTau.PValue(c, out bool exact), 13);
+                Assert.True(exact);
+            }
+        }
+    }
+
+    private static IEnumerable<double[]> Permutations(double[] items)
+    {
+        if (items.Length == 1) { yield return items; yield break; }
+        for (int i = 0; i < items.Length; i++)
+            foreach (var rest in Permutations(items.Where((_, j) => j != i).ToArray()))
+                yield return [items[i], .. rest];
+    }
+
+    [Fact]
     public void NullVarianceWithoutTiesIsTheClassicalFormula()
     {
         // Without ties Var(S) = n(n − 1)(2n + 5)/18 (Kendall 1970, eq. 4.3 with no tie terms).

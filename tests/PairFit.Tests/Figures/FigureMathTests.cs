@@ -153,7 +153,7 @@ public sealed class FigureMathTests
             double u = model.X.Cdf(xs[i]), v = model.Y.Cdf(ys[i]);
             switch (k)
             {
-                // bisection to 1e−12 in v; the error in probability is at most that times a density ≤ 1
+                // roots to 1e−12 in v; the error in probability is at most that times ∂P/∂v ≤ 1
                 case ReturnPeriodFigure.Kind.And: Assert.Equal(p, (1 - u) * (1 - v), 1e-9); break;
                 case ReturnPeriodFigure.Kind.Or: Assert.Equal(p, 1 - u * v, 1e-9); break;
                 // t* comes from 20000 draws of C(U, V): its sd is about √(p(1 − p)/N)/k_C(t*) = 1e−3/0.2 = 5e−3

@@ -68,6 +68,9 @@ public sealed class FigureRenderingTests : IDisposable
 
         var svg = XDocument.Load(Path.Combine(_dir, files[1].RelativePath));
         Assert.Equal("svg", svg.Root!.Name.LocalName);
+        // physical size for print: 120 mm wide, drawing units kept by the viewBox (120 mm = 453.5 CSS px)
+        Assert.Equal("120mm", svg.Root.Attribute("width")!.Value);
+        Assert.StartsWith("0 0 453.5", svg.Root.Attribute("viewBox")!.Value);
 
         using (var fs = File.OpenRead(Path.Combine(_dir, files[2].RelativePath)))
         {
@@ -133,6 +136,25 @@ public sealed class FigureRenderingTests : IDisposable
         var ex = Assert.Throws<PairFitInputException>(() =>
             FigureSet.RenderAll(sample, FigureTestData.Analyse(sample, withModel: false).Results, null, _dir, new FigureOptions { Formats = [format], WidthMm = width, Dpi = dpi }));
         Assert.DoesNotContain('\n', ex.Message);
+    }
+
+    [Fact]
+    public void Explicit_height_overrides_the_aspect()
+    {
+        var sample = FigureTestData.Sample();
+        var fig = ScatterFigure.Build(sample);
+        var o = new FigureOptions { WidthMm = 85, HeightMm = 60, Dpi = 300 };
+        // 85 mm × 60 mm at 300 dpi = 1003.9 × 708.7 px → 1004 × 709
+        Assert.Equal((1004, 709), FigureExporter.PixelSize(fig, o));
+        using var pdf = new MemoryStream();
+        FigureExporter.WritePdf(fig, o, pdf);
+        // the PDF page is the physical size in points: 85 mm = 240.94 pt, 60 mm = 170.08 pt (ISO 32000 MediaBox).
+        // Skia writes the page size with float rounding of its own (seen: 453.6 for 453.54); 0.5 pt = 0.18 mm is ample.
+        string text = System.Text.Encoding.Latin1.GetString(pdf.ToArray());
+        var box = System.Text.RegularExpressions.Regex.Match(text, @"/MediaBox \[0 0 ([0-9.]+) ([0-9.]+)\]");
+        Assert.True(box.Success);
+        Assert.Equal(240.94, double.Parse(box.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture), 0.5);
+        Assert.Equal(170.08, double.Parse(box.Groups[2].Value, System.Globalization.CultureInfo.InvariantCulture), 0.5);
     }
 
     [Fact]

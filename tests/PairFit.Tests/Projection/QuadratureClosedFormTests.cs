@@ -85,7 +85,7 @@ public class QuadratureClosedFormTests
     {
         // X + Y ~ N(μ1 + μ2, σ1² + σ2² + 2ρσ1σ2) for a bivariate normal pair (Mood, Graybill and Boes 1974, ch. IV §5).
         const double m1 = 1, s1 = 2, m2 = -0.5, s2 = 0.7;
-        var model = new JointModel(new NormalDistribution(m1, s1), new NormalDistribution(m2, s2), new GaussianCopulaDouble(rho));
+        var model = new JointModel(new NormalDistribution(m1, s1), new NormalDistribution(m2, s2), new GaussianCopula(rho));
         var qd = Quadrature(model, "x + y");
         double sd = Math.Sqrt(s1 * s1 + s2 * s2 + 2 * rho * s1 * s2);
         foreach (double z in new[] { -3.5, -1.2, 0.0, 0.4, 2.0, 4.0 })
@@ -102,7 +102,7 @@ public class QuadratureClosedFormTests
         // log XY = log X + log Y is normal with variance σ1² + σ2² + 2ρσ1σ2 (Aitchison and Brown 1957, Theorem 2.2),
         // the Gaussian copula being invariant under the increasing map log.
         const double m1 = 0.2, s1 = 0.5, m2 = -0.1, s2 = 0.3, rho = -0.4;
-        var model = new JointModel(new LogNormalDistribution(m1, s1), new LogNormalDistribution(m2, s2), new GaussianCopulaDouble(rho));
+        var model = new JointModel(new LogNormalDistribution(m1, s1), new LogNormalDistribution(m2, s2), new GaussianCopula(rho));
         var qd = Quadrature(model, "x * y");
         double sigma = Math.Sqrt(s1 * s1 + s2 * s2 + 2 * rho * s1 * s2);
         foreach (double q in new[] { 0.3, 0.8, 1.1, 2.0, 4.0 })

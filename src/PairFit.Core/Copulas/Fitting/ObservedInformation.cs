@@ -10,8 +10,40 @@ namespace PairFit.Core.Copulas.Fitting;
 /// </summary>
 public static class ObservedInformation
 {
-    /// <summary>Step in free coordinates: truncation error O(h²) ≈ 1e−6 relative, round-off ε|ℓ|/h² negligible against n.</summary>
-    private const double Step = 1e-3;
+    /// <summary>
+    /// Step in free coordinates. Truncation error of the central differences is O(h²) ≈ 1e−8 relative;
+    /// round-off is about ε|ℓ|/h² ≈ 2e−8|ℓ|, negligible against the curvature, which grows like n as |ℓ| does.
+    /// </summary>
+    public const double Step = 1e-4;
+
+    /// <summary>Gradient and Hessian of <paramref name="f"/> at <paramref name="x"/> (whose value is <paramref name="f0"/>) by central differences.</summary>
+    public static (double[] Gradient, Matrix<double> Hessian) Derivatives(Func<double[], double> f, double[] x, double f0, double h = Step)
+    {
+        int k = x.Length;
+        var g = new double[k];
+        var hess = Matrix<double>.Build.Dense(k, k);
+        var t = (double[])x.Clone();
+        double At(int i, double di, int j, double dj)
+        {
+            Array.Copy(x, t, k);
+            t[i] += di;
+            t[j] += dj;
+            return f(t);
+        }
+        for (int i = 0; i < k; i++)
+        {
+            double up = At(i, h, i, 0), down = At(i, -h, i, 0);
+            g[i] = (up - down) / (2 * h);
+            hess[i, i] = (up - 2 * f0 + down) / (h * h);
+            for (int j = 0; j < i; j++)
+            {
+                double hij = (At(i, h, j, h) - At(i, h, j, -h) - At(i, -h, j, h) + At(i, -h, j, -h)) / (4 * h * h);
+                hess[i, j] = hij;
+                hess[j, i] = hij;
+            }
+        }
+        return (g, hess);
+    }
 
     /// <summary>
     /// Standard errors of the natural parameters, null for every entry when −H is not positive
@@ -19,31 +51,18 @@ public static class ObservedInformation
     /// </summary>
     public static double?[] StandardErrors(Func<double[], double> logLikelihood, double[] free, double[] derivative, out string? note)
     {
-        int k = free.Length;
+        if (free.Length == 0) { note = null; return []; }
+        var (_, hessian) = Derivatives(logLikelihood, free, logLikelihood(free));
+        return FromHessian(hessian, derivative, out note);
+    }
+
+    /// <summary>Standard errors from a Hessian of the log-likelihood in free coordinates (see the class summary).</summary>
+    public static double?[] FromHessian(Matrix<double> hessian, double[] derivative, out string? note)
+    {
+        int k = derivative.Length;
         note = null;
         var se = new double?[k];
-        if (k == 0) return se;
-        double f0 = logLikelihood(free);
-        var h = Matrix<double>.Build.Dense(k, k);
-        var t = (double[])free.Clone();
-        double At(int i, double di, int j, double dj)
-        {
-            Array.Copy(free, t, k);
-            t[i] += di;
-            t[j] += dj;
-            return logLikelihood(t);
-        }
-        for (int i = 0; i < k; i++)
-        {
-            h[i, i] = (At(i, Step, i, 0) - 2 * f0 + At(i, -Step, i, 0)) / (Step * Step);
-            for (int j = 0; j < i; j++)
-            {
-                double hij = (At(i, Step, j, Step) - At(i, Step, j, -Step) - At(i, -Step, j, Step) + At(i, -Step, j, -Step)) / (4 * Step * Step);
-                h[i, j] = hij;
-                h[j, i] = hij;
-            }
-        }
-        var information = -h;
+        var information = -hessian;
         bool finite = true;
         for (int i = 0; i < k; i++) for (int j = 0; j < k; j++) finite &= double.IsFinite(information[i, j]);
         if (!finite)
@@ -53,8 +72,7 @@ public static class ObservedInformation
         }
         try
         {
-            var cholesky = information.Cholesky();
-            var covariance = cholesky.Solve(Matrix<double>.Build.DenseIdentity(k));
+            var covariance = information.Cholesky().Solve(Matrix<double>.Build.DenseIdentity(k));
             for (int i = 0; i < k; i++)
             {
                 double var = covariance[i, i];

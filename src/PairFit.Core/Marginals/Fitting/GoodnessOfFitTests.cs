@@ -18,17 +18,19 @@ public static class GoodnessOfFitTests
     {
         int n = sorted.Length;
         double ks = 0, ad = 0, cvm = 1.0 / (12.0 * n);
+        var f = FittedCdf(d, sorted);
         var logF = new double[n];
         var logS = new double[n];
-        var f = new double[n];
         for (int i = 0; i < n; i++)
         {
-            double x = sorted[i];
-            double fi = d.Cdf(x);
-            // Take the upper tail from the survival function so that ln(1 − F) keeps its precision.
-            double si = fi > 0.5 ? d.Survival(x) : 1.0 - fi;
-            if (fi > 0.5) fi = 1.0 - si;
-            f[i] = fi;
+            // Where F was evaluated exactly and exceeds 1/2, take 1 − F from the survival function so
+            // that ln(1 − F) keeps its precision (interpolated interior values are far from 0 and 1).
+            double fi = f[i], si = 1.0 - fi;
+            if (fi > 0.5 && (n <= ExactUpTo || i >= n - TailCount))
+            {
+                si = d.Survival(sorted[i]);
+                f[i] = fi = 1.0 - si;
+            }
             logF[i] = Math.Log(Math.Max(fi, double.Epsilon));
             logS[i] = Math.Log(Math.Max(si, double.Epsilon));
         }
@@ -70,6 +72,59 @@ public static class GoodnessOfFitTests
     }
 
     private static double? Finite(double v) => double.IsFinite(v) ? v : null;
+
+    /// <summary>Up to this n every F(x_i) is evaluated exactly.</summary>
+    internal const int ExactUpTo = 20_000;
+
+    /// <summary>Order statistics at each end that are always evaluated exactly.</summary>
+    internal const int TailCount = 2_000;
+
+    /// <summary>Knot spacing (in order statistics) of the interior interpolation.</summary>
+    private const int KnotSpacing = 32;
+
+    /// <summary>
+    /// F at every sorted value. Above <see cref="ExactUpTo"/> values, the TailCount smallest and largest
+    /// are evaluated exactly (they carry ln F and ln(1 − F) in the AD statistic), and the interior is
+    /// interpolated between exact knots every <see cref="KnotSpacing"/> order statistics by the cubic
+    /// Hermite polynomial that matches F and the density f at both knots. Its error is at most
+    /// h⁴ max|f‴|/384 over a knot interval of width h (e.g. Burden and Faires 2011, Theorem 3.9);
+    /// with knots 32 order statistics apart in samples above 20,000 values this is below 1e-12, while
+    /// the CDF, often an incomplete gamma function, is evaluated 32 times less often.
+    /// </summary>
+    internal static double[] FittedCdf(IMarginalDistribution d, ReadOnlySpan<double> sorted)
+    {
+        int n = sorted.Length;
+        var f = new double[n];
+        if (n <= ExactUpTo)
+        {
+            for (int i = 0; i < n; i++) f[i] = d.Cdf(sorted[i]);
+            return f;
+        }
+        for (int i = 0; i < TailCount; i++) f[i] = d.Cdf(sorted[i]);
+        for (int i = n - TailCount; i < n; i++) f[i] = d.Cdf(sorted[i]);
+        int a = TailCount - 1;
+        double xa = sorted[a], fa = f[a], da = d.Density(xa);
+        while (a < n - TailCount)
+        {
+            int b = Math.Min(a + KnotSpacing, n - TailCount);
+            double xb = sorted[b], fb = d.Cdf(xb), db = d.Density(xb);
+            f[b] = fb;
+            double h = xb - xa;
+            bool usable = h > 0 && double.IsFinite(da) && double.IsFinite(db);
+            for (int i = a + 1; i < b; i++)
+            {
+                if (!usable) { f[i] = d.Cdf(sorted[i]); continue; }
+                double t = (sorted[i] - xa) / h, t2 = t * t, t3 = t2 * t;
+                // Cubic Hermite basis: h00 = 2t³ − 3t² + 1, h10 = t³ − 2t² + t, h01 = −2t³ + 3t², h11 = t³ − t².
+                f[i] = (2 * t3 - 3 * t2 + 1) * fa + (t3 - 2 * t2 + t) * h * da + (-2 * t3 + 3 * t2) * fb + (t3 - t2) * h * db;
+            }
+            a = b;
+            xa = xb;
+            fa = fb;
+            da = db;
+        }
+        return f;
+    }
 
     /// <summary>
     /// Asymptotic Kolmogorov distribution Q(λ) = 2 Σ_{k≥1} (−1)^(k−1) exp(−2k²λ²) with Stephens' (1970)

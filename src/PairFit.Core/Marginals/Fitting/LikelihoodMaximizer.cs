@@ -1,51 +1,123 @@
-using MathNet.Numerics.Differentiation;
 using MathNet.Numerics.LinearAlgebra;
 using MathNet.Numerics.Optimization;
 
 namespace PairFit.Core.Marginals.Fitting;
 
 /// <summary>
-/// Maximises a log-likelihood for families without a closed form or a one-dimensional profile.
-/// Nelder–Mead (derivative-free, copes with −Infinity at infeasible points) finds the optimum on a
-/// stratified subsample of at most <see cref="SubsampleSize"/> order statistics; Newton steps on the
-/// full data then polish it. The polishing Newton step uses the subsample Hessian scaled by n/m
-/// (a quasi-Newton step: the log-likelihood Hessian is a sum over observations, so it scales with n)
-/// and a central-difference gradient of the full log-likelihood, with step halving so the
-/// likelihood never decreases.
+/// Σ log f over <paramref name="values"/> at parameters <paramref name="p"/> (−Infinity when infeasible);
+/// when <paramref name="gradient"/> is not null it also receives the analytic gradient.
+/// </summary>
+public delegate double LogLikelihoodWithGradient(ReadOnlySpan<double> values, double[] p, double[]? gradient);
+
+/// <summary>
+/// Maximises a log-likelihood that has an analytic gradient (families without a closed form or a
+/// one-dimensional profile: GEV, log-logistic). Newton's method on the full data from a moment or
+/// L-moment start, with step halving so the likelihood never decreases. The Hessian is the forward
+/// difference of the analytic gradient on a stratified subsample of at most
+/// <see cref="CurvatureSampleSize"/> order statistics, scaled by n/m: the log-likelihood Hessian is a
+/// sum over observations, so the subsample's curvature estimates the full one to about 1/√m, and
+/// the iteration converges linearly at about that rate while each step costs one pass over the data.
+/// When the Hessian is not negative definite (start far from the optimum), Nelder–Mead on the
+/// subsample moves the start first.
 /// </summary>
 public static class LikelihoodMaximizer
 {
+    public const int CurvatureSampleSize = 4000;
+
+    /// <summary>Subsample size used elsewhere for cheap searches (profile grids) before full-data refinement.</summary>
     public const int SubsampleSize = 20_000;
 
     public sealed record Outcome(double[] Parameters, double LogLikelihood, bool Converged, string? Note);
 
-    /// <param name="logLikelihood">Full-data log-likelihood of the parameter vector (−Infinity when infeasible).</param>
-    /// <param name="subsampleLogLikelihood">The same on the stratified subsample, or null when the data are small.</param>
-    /// <param name="weight">n/m, the factor from subsample to full-data curvature (1 when no subsample).</param>
-    /// <param name="starts">Starting points, tried in order; the best end point wins.</param>
-    /// <param name="steps">Initial simplex size per parameter.</param>
-    public static Outcome Maximize(Func<double[], double> logLikelihood, Func<double[], double>? subsampleLogLikelihood,
-        double weight, IReadOnlyList<double[]> starts, double[] steps)
+    public static Outcome Maximize(LogLikelihoodWithGradient f, double[] values, IReadOnlyList<double[]> starts, double[] simplexSteps)
     {
-        var searchLl = subsampleLogLikelihood ?? logLikelihood;
-        double[]? best = null;
-        double bestValue = double.NegativeInfinity;
-        bool simplexConverged = false;
+        double[] sub = MarginalSample.Stratified(values, CurvatureSampleSize);
+        double weight = (double)values.Length / sub.Length;
+        Outcome? best = null;
         foreach (var start in starts)
         {
-            if (!double.IsFinite(searchLl(start))) continue;
-            var (point, value, converged) = NelderMead(searchLl, start, steps);
-            if (value > bestValue) { best = point; bestValue = value; simplexConverged = converged; }
+            if (!double.IsFinite(f(values, start, null))) continue;
+            var outcome = Newton(f, values, sub, weight, start);
+            if (!outcome.Converged)
+            {
+                // Far from the optimum: let Nelder–Mead on the subsample find the concave region.
+                var moved = NelderMead(p => f(sub, p, null), start, simplexSteps);
+                var retry = Newton(f, values, sub, weight, moved);
+                if (retry.LogLikelihood >= outcome.LogLikelihood) outcome = retry;
+            }
+            if (best is null || outcome.LogLikelihood > best.LogLikelihood) best = outcome;
+            if (best.Converged) break;
         }
-        if (best is null) return new Outcome(starts[0], double.NegativeInfinity, false, "no feasible starting point");
-
-        var (polished, ll, newtonConverged) = Polish(logLikelihood, searchLl, weight, best);
-        bool ok = newtonConverged && (simplexConverged || subsampleLogLikelihood is not null);
-        string? note = ok ? null : newtonConverged ? "Nelder–Mead stopped at its iteration limit; Newton polish converged" : "Newton polish did not reach its tolerance";
-        return new Outcome(polished, ll, newtonConverged, note);
+        return best ?? new Outcome(starts[0], double.NegativeInfinity, false, "no feasible starting point");
     }
 
-    private static (double[] Point, double Value, bool Converged) NelderMead(Func<double[], double> ll, double[] start, double[] steps)
+    private static Outcome Newton(LogLikelihoodWithGradient f, double[] values, double[] sub, double weight, double[] start)
+    {
+        int p = start.Length;
+        var x = (double[])start.Clone();
+        var g = new double[p];
+        double fx = f(values, x, g);
+        for (int iteration = 0; iteration < 60; iteration++)
+        {
+            var h = SubsampleHessian(f, sub, x, weight);
+            if (h is null) return new(x, fx, false, "curvature undefined");
+            var grad = Vector<double>.Build.DenseOfArray(g);
+            Vector<double> step;
+            try { step = (-h).Cholesky().Solve(grad); }   // −H is positive definite near a maximum
+            catch (ArgumentException) { return new(x, fx, false, "Hessian not negative definite"); }
+            if (!step.All(double.IsFinite)) return new(x, fx, false, "Newton step not finite");
+            double decrement = grad * step;   // gᵀ(−H)⁻¹g: twice the predicted gain
+            if (decrement < 1e-10) return new(x, fx, true, null);
+            bool improved = false;
+            double t = 1;
+            for (int half = 0; half < 40; half++, t *= 0.5)
+            {
+                var trial = new double[p];
+                for (int i = 0; i < p; i++) trial[i] = x[i] + t * step[i];
+                var gt = new double[p];
+                double ft = f(values, trial, gt);
+                if (ft >= fx)
+                {
+                    x = trial;
+                    fx = ft;
+                    g = gt;
+                    improved = true;
+                    break;
+                }
+            }
+            // No improvement along an ascent direction: the remaining gain is below rounding.
+            if (!improved) return new(x, fx, decrement < 1e-6, decrement < 1e-6 ? null : "line search failed");
+        }
+        return new(x, fx, false, "Newton iteration limit reached");
+    }
+
+    /// <summary>Forward differences of the analytic gradient on the subsample, symmetrised, times n/m.</summary>
+    private static Matrix<double>? SubsampleHessian(LogLikelihoodWithGradient f, double[] sub, double[] x, double weight)
+    {
+        int p = x.Length;
+        var g0 = new double[p];
+        if (!double.IsFinite(f(sub, x, g0))) return null;
+        var h = Matrix<double>.Build.Dense(p, p);
+        var y = (double[])x.Clone();
+        var gi = new double[p];
+        for (int i = 0; i < p; i++)
+        {
+            // Step ~ √ε relative: the forward-difference optimum for a smooth gradient.
+            double step = 1.5e-8 * Math.Max(1.0, Math.Abs(x[i]));
+            y[i] = x[i] + step;
+            if (!double.IsFinite(f(sub, y, gi)))
+            {
+                y[i] = x[i] - step;
+                if (!double.IsFinite(f(sub, y, gi))) return null;
+                step = -step;
+            }
+            y[i] = x[i];
+            for (int j = 0; j < p; j++) h[j, i] = (gi[j] - g0[j]) / step;
+        }
+        return (h + h.Transpose()) * (0.5 * weight);
+    }
+
+    private static double[] NelderMead(Func<double[], double> ll, double[] start, double[] steps)
     {
         // Track the best point seen: MathNet's Nelder–Mead throws at the iteration limit and loses it.
         double[] best = start;
@@ -60,81 +132,10 @@ public static class LikelihoodMaximizer
         }
         try
         {
-            var solver = new NelderMeadSimplex(1e-12, 4000);
-            var result = solver.FindMinimum(ObjectiveFunction.Value(Objective), Vector<double>.Build.DenseOfArray(start),
-                Vector<double>.Build.DenseOfArray(steps));
-            var p = result.MinimizingPoint.ToArray();
-            double l = ll(p);
-            return l >= bestValue ? (p, l, true) : (best, bestValue, true);
+            new NelderMeadSimplex(1e-10, 3000).FindMinimum(ObjectiveFunction.Value(Objective),
+                Vector<double>.Build.DenseOfArray(start), Vector<double>.Build.DenseOfArray(steps));
         }
-        catch (MaximumIterationsException)
-        {
-            return (best, bestValue, false);
-        }
-    }
-
-    /// <summary>
-    /// Newton iterations on the full log-likelihood with curvature from <paramref name="curvatureLl"/> × weight.
-    /// </summary>
-    private static (double[] Point, double Value, bool Converged) Polish(Func<double[], double> ll, Func<double[], double> curvatureLl, double weight, double[] start)
-    {
-        int p = start.Length;
-        var x = (double[])start.Clone();
-        double fx = ll(x);
-        var hessian = new NumericalHessian();
-        for (int iteration = 0; iteration < 20; iteration++)
-        {
-            var h = Matrix<double>.Build.DenseOfArray(hessian.Evaluate(curvatureLl, x)) * weight;
-            var g = CentralGradient(ll, x);
-            if (g is null) return (x, fx, false);
-            Vector<double> step;
-            try
-            {
-                // Newton direction for a maximum: −H⁻¹ g with H negative definite.
-                step = -h.Solve(Vector<double>.Build.DenseOfArray(g));
-            }
-            catch (Exception) { return (x, fx, false); }
-            if (!step.All(double.IsFinite)) return (x, fx, false);
-            double decrement = Vector<double>.Build.DenseOfArray(g) * step;   // predicted gain × 2
-            if (decrement <= 0)   // not an ascent direction: H not negative definite here
-                return (x, fx, Math.Abs(decrement) < 1e-10);
-            if (decrement < 1e-9) return (x, fx, true);
-            double t = 1.0;
-            bool improved = false;
-            for (int half = 0; half < 30; half++, t *= 0.5)
-            {
-                var trial = new double[p];
-                for (int i = 0; i < p; i++) trial[i] = x[i] + t * step[i];
-                double ft = ll(trial);
-                if (ft >= fx)
-                {
-                    x = trial;
-                    fx = ft;
-                    improved = true;
-                    break;
-                }
-            }
-            if (!improved) return (x, fx, decrement < 1e-6);
-        }
-        return (x, fx, false);
-    }
-
-    /// <summary>Central differences with relative steps (about ε^(1/3) of the parameter scale).</summary>
-    internal static double[]? CentralGradient(Func<double[], double> f, double[] x)
-    {
-        var g = new double[x.Length];
-        var y = (double[])x.Clone();
-        for (int i = 0; i < x.Length; i++)
-        {
-            double h = 6e-6 * Math.Max(1.0, Math.Abs(x[i]));
-            y[i] = x[i] + h;
-            double up = f(y);
-            y[i] = x[i] - h;
-            double down = f(y);
-            y[i] = x[i];
-            if (!double.IsFinite(up) || !double.IsFinite(down)) return null;
-            g[i] = (up - down) / (2 * h);
-        }
-        return g;
+        catch (MaximumIterationsException) { }
+        return best;
     }
 }

@@ -7,11 +7,14 @@ namespace PairFit.Core.Marginals.Fitting;
 /// Standard errors from the observed information: the inverse of minus the Hessian of the
 /// log-likelihood at the estimate (Cox and Hinkley 1974, §9.2), the Hessian by central
 /// differences (MathNet NumericalHessian). Parameters marked fixed (boundary estimates) are held
-/// at their value and get no standard error.
+/// at their value and get no standard error. <c>weight</c> scales the Hessian when it is computed on
+/// a stratified subsample of m of the n values (weight n/m): the Hessian is a sum over observations,
+/// so this estimates the full-data information to about 1/√m relative, i.e. standard errors to
+/// better than 1 % at m = 20,000, at a fraction of the cost.
 /// </summary>
 public static class StandardErrors
 {
-    public static double?[] FromObservedInformation(Func<double[], double> logLikelihood, double[] estimate, bool[]? fixedMask = null)
+    public static double?[] FromObservedInformation(Func<double[], double> logLikelihood, double[] estimate, bool[]? fixedMask = null, double weight = 1.0)
     {
         int p = estimate.Length;
         var free = new List<int>(p);
@@ -30,7 +33,7 @@ public static class StandardErrors
         double[,] h;
         try { h = new NumericalHessian().Evaluate(Reduced, x0); }
         catch (Exception) { return result; }
-        var info = -Matrix<double>.Build.DenseOfArray(h);
+        var info = -weight * Matrix<double>.Build.DenseOfArray(h);
         if (!info.Enumerate().All(double.IsFinite)) return result;
         Matrix<double> cov;
         try { cov = info.Inverse(); }

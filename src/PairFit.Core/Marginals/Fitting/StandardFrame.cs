@@ -7,13 +7,11 @@ namespace PairFit.Core.Marginals.Fitting;
 /// </summary>
 internal sealed class StandardFrame
 {
-    private StandardFrame(double shift, double scale, double[] values, double[]? subsample, double weight)
+    private StandardFrame(double shift, double scale, double[] values)
     {
         Shift = shift;
         Scale = scale;
         Values = values;
-        Subsample = subsample;
-        SubsampleWeight = weight;
     }
 
     public double Shift { get; }
@@ -22,12 +20,6 @@ internal sealed class StandardFrame
     /// <summary>Standardised values, ascending.</summary>
     public double[] Values { get; }
 
-    /// <summary>Stratified subsample of the standardised values when n is large, else null.</summary>
-    public double[]? Subsample { get; }
-
-    /// <summary>n / m for the subsample (1 when there is none).</summary>
-    public double SubsampleWeight { get; }
-
     public static StandardFrame Of(MarginalSample s) => Of(s.Values, s.LMoments);
 
     public static StandardFrame Of(double[] sorted, LMoments l)
@@ -35,8 +27,7 @@ internal sealed class StandardFrame
         double c = l.L1, d = l.L2 > 0 ? l.L2 : 1.0;
         var y = new double[sorted.Length];
         for (int i = 0; i < y.Length; i++) y[i] = (sorted[i] - c) / d;
-        double[]? sub = y.Length > LikelihoodMaximizer.SubsampleSize ? MarginalSample.Stratified(y, LikelihoodMaximizer.SubsampleSize) : null;
-        return new StandardFrame(c, d, y, sub, sub is null ? 1.0 : (double)y.Length / sub.Length);
+        return new StandardFrame(c, d, y);
     }
 
     /// <summary>(location, scale, shapes…) in data units → standardised units.</summary>

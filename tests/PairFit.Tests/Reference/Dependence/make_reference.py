@@ -10,7 +10,8 @@ small synthetic datasets (fixed seeds; ties and negative dependence included) as
 reference.json with, per dataset:
   pearson  : scipy.stats.pearsonr -> statistic, pvalue, confidence_interval(0.95) (Fisher z)
   spearman : scipy.stats.spearmanr -> statistic, pvalue (t approximation)
-  kendall  : scipy.stats.kendalltau(variant='b', method='asymptotic') -> statistic, pvalue
+  kendall  : scipy.stats.kendalltau(variant='b', method='asymptotic') -> statistic, pvalue;
+             pValueAuto from the default method='auto' (exact when no ties and n <= 33)
   kendallJackknifeSe : jackknife standard error of tau-b from n leave-one-out scipy kendalltau calls
   tail     : empirical tail dependence counted directly on scipy.stats.rankdata pseudo-observations
              u = rank/(n+1), k = floor(sqrt(n)): upper = #{u > 1-k/n, v > 1-k/n}/k, lower = #{u <= k/n, v <= k/n}/k
@@ -42,6 +43,9 @@ def datasets():
     z1 = rng.normal(0, 1, 500)
     z2 = 0.7 * z1 + math.sqrt(1 - 0.49) * rng.normal(0, 1, 500)
     out["skewed_500"] = (np.exp(1.0 * z1 + 2), np.exp(0.5 * z2))
+    # No ties, n = 30: the exact p-value region.
+    x = rng.normal(0, 1, 30)
+    out["no_ties_30"] = (x, 0.4 * x + rng.normal(0, 1, 30))
     # Small, no ties.
     out["tiny"] = (np.array([1.2, 3.4, 2.2, 5.9, 4.1]), np.array([2.0, 2.9, 3.5, 6.1, 3.3]))
     # Monotone but not linear: Spearman and Kendall are 1, Pearson is not.
@@ -77,11 +81,12 @@ def main():
         ci = p.confidence_interval(0.95)
         s = stats.spearmanr(x, y)
         k = stats.kendalltau(x, y, variant="b", method="asymptotic")
+        k_auto = stats.kendalltau(x, y, variant="b")
         entry = {
             "n": len(x),
             "pearson": {"estimate": float(p.statistic), "pValue": float(p.pvalue), "ci95": [float(ci.low), float(ci.high)]},
             "spearman": {"estimate": float(s.statistic), "pValue": float(s.pvalue)},
-            "kendall": {"estimate": float(k.statistic), "pValue": float(k.pvalue)},
+            "kendall": {"estimate": float(k.statistic), "pValue": float(k.pvalue), "pValueAuto": float(k_auto.pvalue)},
             "tail": tail(x, y),
         }
         if len(x) <= 100:
