@@ -188,7 +188,7 @@ with open("student_t.csv", "w", newline="") as f:
     w = csv.writer(f)
     w.writerow(["nu", "p", "quantile"])
     for nu in (2.0, 2.5, 3.0, 4.5, 10.0, 60.0):
-        for p in (1e-12, 1e-8, 1e-4, 0.01, 0.2, 0.4999, 0.5, 0.6, 0.9, 0.999, 1 - 1e-7):
+        for p in (1e-12, 1e-8, 1e-4, 0.01, 0.0101, 0.03, 0.08, 0.2, 0.4999, 0.5, 0.6, 0.9, 0.999, 1 - 1e-7):
             w.writerow([r(nu), r(p), r(t_ppf(p, nu))])
 
 # ---------- 5. Kendall tau of Archimedean families (Genest and MacKay 1986) ----------
