@@ -56,13 +56,13 @@ public readonly struct StudentTFunctions
         // each accurate relative to its own size, so the factor a = ν/2 (up to 30) does not amplify
         // the rounding of two O(1) logarithms (seen as 1e−13 relative noise in F before).
         double logFront = -a * MathExtras.Log1P(x2 / Nu) - b * MathExtras.Log1P(Nu / x2) - _logBetaHalfNuHalf;
-        // Continued fraction on the side where it converges fast (Press et al. 2007, section 6.4).
+        // Continued fraction on the side where it converges fast (Press et al. 2007, section 6.4; from memory).
         if (z < (a + 1) / (a + b + 2))
             return 0.5 * Math.Exp(logFront) * IncompleteBetaFraction(a, b, z) / a;
         return 0.5 * (1 - Math.Exp(logFront) * IncompleteBetaFraction(b, a, zComplement) / b);
     }
 
-    /// <summary>The continued fraction for I_x(a, b), by the modified Lentz method (Press et al. 2007, eq. 6.4.5).</summary>
+    /// <summary>The continued fraction for I_x(a, b), by the modified Lentz method (Press et al. 2007, section 6.4; from memory).</summary>
     private static double IncompleteBetaFraction(double a, double b, double x)
     {
         const double tiny = 1e-300, eps = 1e-16;

@@ -139,7 +139,7 @@ public sealed class FrankCopula : ICopula
     /// <summary>ρ_S = 1 − 12 (D1(θ) − D2(θ))/θ (Genest 1987; Nelsen 2006, ch. 5 exercises).</summary>
     public double SpearmanRho => 1 - 12 * (Debye.D1(Theta) - Debye.D2(Theta)) / Theta;
 
-    /// <summary>No tail dependence (Nelsen 2006, Example 5.22 and after).</summary>
+    /// <summary>No tail dependence (Nelsen 2006, section 5.4; from memory).</summary>
     public double TailLower => 0.0;
 
     public double TailUpper => 0.0;
