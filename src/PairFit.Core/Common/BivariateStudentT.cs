@@ -98,9 +98,10 @@ public static class BivariateStudentT
     {
         var (r, w) = MixtureRule(nu);
         double scale = 1 / Math.Sqrt(nu), sum = 0;
+        double[]? sines = BivariateNormal.SineNodes(rho); // shared by all nodes: one ρ
         for (int i = 0; i < r.Length; i++)
         {
-            double p = BivariateNormal.Cdf(h * r[i] * scale, k * r[i] * scale, rho);
+            double p = BivariateNormal.Cdf(h * r[i] * scale, k * r[i] * scale, rho, sines);
             sum += w[i] * p;
         }
         return sum;
