@@ -17,7 +17,7 @@ public static class ConsoleSummary
         if (r.Marginals is { } m)
         {
             w.WriteLine();
-            MarginalTable.Write(m, w);
+            MarginalTable.Write(m, w, r.Input.XColumn, r.Input.YColumn);
         }
         if (r.Copula is { } c)
         {

@@ -12,7 +12,7 @@ namespace PairFit.Benchmarks;
 /// control of missing tokens and precision).
 /// Run: dotnet run -c Release --project tests/PairFit.Benchmarks -- --filter '*DataBenchmarks*' --job short
 /// </summary>
-[MemoryDiagnoser]
+[MemoryDiagnoser, MedianColumn]
 public class DataBenchmarks
 {
     private const int Rows = 1_000_000;

@@ -10,7 +10,7 @@ namespace PairFit.Benchmarks;
 /// (Pearson, Spearman, Kendall with jackknife interval, tail dependence) on the same pairs.
 /// Run: dotnet run -c Release --project tests/PairFit.Benchmarks -- --filter '*DependenceBenchmarks*' --job short
 /// </summary>
-[MemoryDiagnoser]
+[MemoryDiagnoser, MedianColumn]
 public class DependenceBenchmarks
 {
     private double[] _x = [], _y = [];

@@ -8,7 +8,7 @@ public sealed class CsvReadingOptions
 {
     public readonly Option<string?> Delimiter = new("--delimiter")
     {
-        Description = "Field delimiter: comma, semicolon, tab (or the character itself). Default: detected from the header line.",
+        Description = "Field delimiter: comma, semicolon, tab, pipe (or the character itself). Default: detected from the header line (comma, semicolon or tab).",
     };
 
     public readonly Option<bool> DecimalComma = new("--decimal-comma")
@@ -21,6 +21,9 @@ public sealed class CsvReadingOptions
         Description = "Extra token that marks a missing value, e.g. -9999 (repeatable). Empty, NA, NaN and null are always missing.",
         AllowMultipleArgumentsPerToken = false,
     };
+
+    /// <summary>Punctuation other than the quote and the decimal point: a letter, digit, blank or '"' would cut numbers or quoted fields apart.</summary>
+    private static bool IsUsableDelimiter(char c) => (char.IsPunctuation(c) || char.IsSymbol(c)) && c is not ('"' or '.' or '-' or '+');
 
     public void AddTo(Command command)
     {
@@ -38,7 +41,10 @@ public sealed class CsvReadingOptions
             "comma" or "," => ',',
             "semicolon" or ";" => ';',
             "tab" or "\\t" or "\t" => '\t',
-            _ => throw new Core.Common.PairFitInputException($"--delimiter '{d}' is not one of comma, semicolon, tab."),
+            "pipe" or "|" => '|',
+            { Length: 1 } one when IsUsableDelimiter(one[0]) => one[0],
+            _ => throw new Core.Common.PairFitInputException(
+                $"--delimiter '{d}' is not usable; give comma, semicolon, tab, pipe or one punctuation character."),
         };
         return new CsvOptions
         {

@@ -65,8 +65,8 @@ public static class DemoCommand
                 Y = new ColumnSelector("runoff_mm"),
                 Csv = new CsvOptions { MissingTokens = ["-9999"] },
                 Seed = seed,
-                // The runoff coefficient, and the rain that did not run off (infiltration and storage).
-                Projections = ["runoff_mm / rainfall_mm", "rainfall_mm - runoff_mm"],
+                // The event runoff coefficient: the share of the storm's rain that ran off.
+                Projections = ["runoff_mm / rainfall_mm"],
                 Projection = new ProjectionOptions { Thresholds = [0.5, 1.0], Levels = [0.99] },
                 // A storm of 85 mm giving 40 mm of runoff; 3,000 events in 25 years = 120 a year.
                 Joint = new JointOptions { XValue = 85, YValue = 40, EventsPerYear = 120, ReturnPeriod = 10 },

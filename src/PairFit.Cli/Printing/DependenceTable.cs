@@ -24,8 +24,9 @@ public static class DependenceTable
             w.WriteLine("  Tail dependence: undefined");
 
         w.WriteLine("  Methods: p-values from t tests on n-2 df (Pearson; Spearman as an approximation) and the normal");
-        w.WriteLine("  approximation with tie-corrected variance (Kendall); intervals by Fisher z (Pearson), Fisher z with");
-        w.WriteLine("  the Bonett-Wright se (Spearman), jackknife (Kendall). Tail: joint exceedances of pseudo-observations.");
+        w.WriteLine("  approximation with tie-corrected variance (Kendall; exact without ties for n <= 33); intervals by");
+        w.WriteLine("  Fisher z (Pearson), Fisher z with the Bonett-Wright se (Spearman), jackknife (Kendall).");
+        w.WriteLine("  Tail: upper = (pairs among the k largest of both variables)/k, lower likewise with the k smallest.");
 
         // Anything beyond the standard method text (undefined values, small-sample cautions) is printed.
         var notes = new List<string>();

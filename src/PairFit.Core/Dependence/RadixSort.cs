@@ -58,8 +58,16 @@ internal static class RadixSort
         return order;
     }
 
-    /// <summary>Stable sort of <paramref name="keys"/> carrying <paramref name="payload"/> along, in place.</summary>
-    private static void SortByKey<T>(ulong[] keys, T[] payload) where T : unmanaged
+    /// <summary>Sorts <paramref name="values"/> ascending in place (NaN refused).</summary>
+    public static void Sort(double[] values, string what)
+    {
+        var keys = Keys(values, what);
+        SortByKey<byte>(keys, null);
+        for (int i = 0; i < keys.Length; i++) values[i] = Value(keys[i]);
+    }
+
+    /// <summary>Stable sort of <paramref name="keys"/> carrying <paramref name="payload"/> (if any) along, in place.</summary>
+    private static void SortByKey<T>(ulong[] keys, T[]? payload) where T : unmanaged
     {
         int n = keys.Length;
         if (n < 2) return;
@@ -70,7 +78,7 @@ internal static class RadixSort
                 counts[p * Buckets + (int)((k >> (p * DigitBits)) & (Buckets - 1))]++;
 
         ulong[] srcKeys = keys, dstKeys = new ulong[n];
-        T[] srcLoad = payload, dstLoad = new T[n];
+        T[]? srcLoad = payload, dstLoad = payload is null ? null : new T[n];
         for (int p = 0; p < Passes; p++)
         {
             var c = counts.AsSpan(p * Buckets, Buckets);
@@ -84,7 +92,7 @@ internal static class RadixSort
                 ulong k = srcKeys[i];
                 int pos = c[(int)((k >> shift) & (Buckets - 1))]++;
                 dstKeys[pos] = k;
-                dstLoad[pos] = srcLoad[i];
+                if (srcLoad is not null) dstLoad![pos] = srcLoad[i];
             }
             (srcKeys, dstKeys) = (dstKeys, srcKeys);
             (srcLoad, dstLoad) = (dstLoad, srcLoad);
@@ -92,7 +100,7 @@ internal static class RadixSort
         if (!ReferenceEquals(srcKeys, keys))
         {
             Array.Copy(srcKeys, keys, n);
-            Array.Copy(srcLoad, payload, n);
+            if (payload is not null) Array.Copy(srcLoad!, payload, n);
         }
     }
 }

@@ -56,8 +56,8 @@ public static class TailDependence
             larger[i] = Math.Max(u[i], v[i]);
             smaller[i] = Math.Min(u[i], v[i]);
         }
-        Array.Sort(larger);
-        Array.Sort(smaller);
+        RadixSort.Sort(larger, "pseudo-observation");
+        RadixSort.Sort(smaller, "pseudo-observation");
         return (larger, smaller);
     }
 

@@ -70,6 +70,15 @@ public class CliBadInputTests : CsvFileTests
     }
 
     [Fact]
+    public void NamedAndSingleCharacterDelimitersAreAccepted()
+    {
+        string path = Files.Write("pipe.csv", "a|b\n1|2\n3|4\n");
+        Assert.Contains("delimiter: '|'", Run("describe", path, "--delimiter", "pipe").Out);
+        Assert.Contains("delimiter: '|'", Run("describe", path, "--delimiter", "|").Out);
+        AssertOneLineBadInput(Run("describe", path, "--delimiter", "x"), "--delimiter 'x' is not usable");
+    }
+
+    [Fact]
     public void DescribePrintsEveryColumnWithItsType()
     {
         string path = Files.Write("ok.csv", "site,rain,flow\nA,1.5,2\nB,NA,3\nC,4.5,-9999\n");

@@ -40,6 +40,17 @@ public class RadixSortTests
     }
 
     [Fact]
+    public void SortInPlaceMatchesArraySort()
+    {
+        var rng = RandomStreams.For(9);
+        var v = Enumerable.Range(0, 4000).Select(_ => Math.Round((rng.NextDouble() - 0.5) * 100, 1)).ToArray();
+        var expected = v.ToArray();
+        Array.Sort(expected);
+        RadixSort.Sort(v, "value");
+        Assert.Equal(expected, v);
+    }
+
+    [Fact]
     public void SortPairsIsLexicographic()
     {
         var rng = RandomStreams.For(8);
