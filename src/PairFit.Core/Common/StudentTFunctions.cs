@@ -52,16 +52,17 @@ public readonly struct StudentTFunctions
         double z = Nu / denominator, zComplement = x2 / denominator;
         double a = Nu / 2;
         const double b = 0.5;
-        // log of z^a (1 − z)^b / B(a, b); log(1 − z) = 2 log|x| − log(ν + x²) keeps small |x| exact.
-        double logDenominator = Math.Log(denominator);
-        double logFront = a * (Math.Log(Nu) - logDenominator) + b * (2 * Math.Log(-x) - logDenominator) - _logBetaHalfNuHalf;
-        // Continued fraction on the side where it converges fast (Press et al. 2007, section 6.4).
+        // log of z^a (1 − z)^b / B(a, b), with log z = −log1p(x²/ν) and log(1 − z) = −log1p(ν/x²):
+        // each accurate relative to its own size, so the factor a = ν/2 (up to 30) does not amplify
+        // the rounding of two O(1) logarithms (seen as 1e−13 relative noise in F before).
+        double logFront = -a * MathExtras.Log1P(x2 / Nu) - b * MathExtras.Log1P(Nu / x2) - _logBetaHalfNuHalf;
+        // Continued fraction on the side where it converges fast (Press et al. 2007, section 6.4; from memory).
         if (z < (a + 1) / (a + b + 2))
             return 0.5 * Math.Exp(logFront) * IncompleteBetaFraction(a, b, z) / a;
         return 0.5 * (1 - Math.Exp(logFront) * IncompleteBetaFraction(b, a, zComplement) / b);
     }
 
-    /// <summary>The continued fraction for I_x(a, b), by the modified Lentz method (Press et al. 2007, eq. 6.4.5).</summary>
+    /// <summary>The continued fraction for I_x(a, b), by the modified Lentz method (Press et al. 2007, section 6.4; from memory).</summary>
     private static double IncompleteBetaFraction(double a, double b, double x)
     {
         const double tiny = 1e-300, eps = 1e-16;
@@ -108,7 +109,7 @@ public readonly struct StudentTFunctions
     private double LowerQuantile(double p)
     {
         double z = BivariateNormal.StandardQuantile(p);
-        if (p > 0.15) return CentralQuantile(p, z);
+        if (p > 0.01) return CentralQuantile(p, z);
         double logP = Math.Log(p);
         double sTail = (_tailConstant - logP) / Nu;
         double s = Math.Max(sTail, Math.Log(Math.Max(-z, 1e-300)));
@@ -131,7 +132,7 @@ public readonly struct StudentTFunctions
     }
 
     /// <summary>
-    /// 0.15 &lt; p &lt; ½: Halley's method on F(x) = p in x itself, from the Cornish–Fisher expansion of
+    /// 0.01 &lt; p &lt; ½: Halley's method on F(x) = p in x itself, from the Cornish–Fisher expansion of
     /// the t quantile in powers of 1/ν (Abramowitz and Stegun 1964, 26.7.5), which is already close
     /// in the centre; F'' = f·(−(ν+1)x/(ν+x²)).
     /// </summary>

@@ -63,8 +63,14 @@ public sealed class FrankCopula : ICopula
     {
         double vBar = 1 - v;
         if (_negative) (v, vBar) = (vBar, v);
-        return _logA + _log1mExpA - _a * (u + v) - 2 * LogD(u, v, vBar);
+        if (_a > DirectLimit) return _logA + _log1mExpA - _a * (u + v) - 2 * LogD(u, v, vBar);
+        // For a ≤ 300 no exponential here underflows (e^(−300) ≈ 5e−131), so D is formed directly
+        // from its two non-negative terms: half the transcendental calls of the log-space form.
+        double d = -Math.Exp(-_a * u) * MathExtras.ExpM1(-_a * v) - Math.Exp(-_a * v) * MathExtras.ExpM1(-_a * vBar);
+        return _logA + _log1mExpA - _a * (u + v) - 2 * Math.Log(d);
     }
+
+    private const double DirectLimit = 300.0;
 
     public double Cdf(double u, double v)
     {
@@ -133,7 +139,7 @@ public sealed class FrankCopula : ICopula
     /// <summary>ρ_S = 1 − 12 (D1(θ) − D2(θ))/θ (Genest 1987; Nelsen 2006, ch. 5 exercises).</summary>
     public double SpearmanRho => 1 - 12 * (Debye.D1(Theta) - Debye.D2(Theta)) / Theta;
 
-    /// <summary>No tail dependence (Nelsen 2006, Example 5.22 and after).</summary>
+    /// <summary>No tail dependence (Nelsen 2006, section 5.4; from memory).</summary>
     public double TailLower => 0.0;
 
     public double TailUpper => 0.0;

@@ -119,7 +119,7 @@ public sealed class GumbelCopula : ICopula
         }
     }
 
-    /// <summary>τ = 1 − 1/θ (Nelsen 2006, Example 5.5).</summary>
+    /// <summary>τ = 1 − 1/θ (Nelsen 2006, Example 5.5; numbering from memory).</summary>
     public double KendallTau => 1 - _inverseTheta;
 
     /// <summary>No closed form; 12∫∫C − 3 by quadrature.</summary>
@@ -127,7 +127,7 @@ public sealed class GumbelCopula : ICopula
 
     public double TailLower => 0.0;
 
-    /// <summary>λ_U = 2 − 2^(1/θ) (Nelsen 2006, Example 5.22).</summary>
+    /// <summary>λ_U = 2 − 2^(1/θ) (Nelsen 2006, Example 5.22; numbering from memory).</summary>
     public double TailUpper => 2 - Math.Pow(2, _inverseTheta);
 
     private sealed class GumbelFamily : ICopulaFamily

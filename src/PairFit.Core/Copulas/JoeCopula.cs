@@ -146,7 +146,7 @@ public sealed class JoeCopula : ICopula
 
     public double TailLower => 0.0;
 
-    /// <summary>λ_U = 2 − 2^(1/θ) (Joe 2014, ch. 4; Nelsen 2006, section 5.4).</summary>
+    /// <summary>λ_U = 2 − 2^(1/θ) (Joe 2014, ch. 4; Nelsen 2006, section 5.4; from memory).</summary>
     public double TailUpper => 2 - Math.Pow(2, _inverseTheta);
 
     private sealed class JoeFamily : ICopulaFamily

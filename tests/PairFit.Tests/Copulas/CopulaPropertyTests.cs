@@ -5,7 +5,7 @@ namespace PairFit.Tests.Copulas;
 /// <summary>
 /// Properties every copula must have, run over every family × allowed rotation (so that the
 /// rotation wrapper is checked with each family). Sources: the definition of a copula and its
-/// density, c = ∂²C/∂u∂v, h(v|u) = ∂C/∂u (Nelsen 2006, sections 2.2 and 2.9).
+/// density, c = ∂²C/∂u∂v, h(v|u) = ∂C/∂u (Nelsen 2006, sections 2.2 and 2.9; numbering from memory).
 /// </summary>
 public class CopulaPropertyTests
 {
@@ -110,7 +110,7 @@ public class CopulaPropertyTests
             double h = c.ConditionalCdf(u, v);
             Assert.InRange(h, 0.0, 1.0);
             double cdf = c.Cdf(u, v);
-            // Fréchet–Hoeffding bounds (Nelsen 2006, Theorem 2.2.3), with rounding slack.
+            // Fréchet–Hoeffding bounds (Nelsen 2006, Theorem 2.2.3; numbering from memory), with rounding slack.
             Assert.InRange(cdf, Math.Max(u + v - 1, 0) - 1e-15, Math.Min(u, v) + 1e-15);
         }
     }

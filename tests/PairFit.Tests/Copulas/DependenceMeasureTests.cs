@@ -16,7 +16,7 @@ public class DependenceMeasureTests
         return data;
     }
 
-    // τ = 1 − 4 ∫∫ (∂C/∂u)(∂C/∂v) du dv (Nelsen 2006, Theorem 5.1.5). Every unrotated family here is
+    // τ = 1 − 4 ∫∫ (∂C/∂u)(∂C/∂v) du dv (Nelsen 2006, Theorem 5.1.5; numbering from memory). Every unrotated family here is
     // exchangeable, so ∂C/∂v(u, v) = h(u|v). The integrand lies in [0, 1] and is smooth inside the
     // square, so the graded Gauss–Legendre rule is accurate to ~1e−9; 1e−7 is a safe bound.
     [Theory]
@@ -28,7 +28,7 @@ public class DependenceMeasureTests
         Assert.Equal(1 - 4 * integral, c.KendallTau, 1e-7);
     }
 
-    // τ = 4 E[C(U, V)] − 1 (Nelsen 2006, eq. 5.1.7), for every rotation: checks the wrapper's sign rules.
+    // τ = 4 E[C(U, V)] − 1 (Nelsen 2006, section 5.1.1; numbering from memory), for every rotation: checks the wrapper's sign rules.
     // The integrand C·c has the density's integrable corner singularities; 1e−5 as for the density mass.
     [Theory]
     [MemberData(nameof(CopulaTestCases.ModerateWithRotations), MemberType = typeof(CopulaTestCases))]
@@ -39,7 +39,7 @@ public class DependenceMeasureTests
         Assert.Equal(4 * e - 1, c.KendallTau, 1e-5);
     }
 
-    // ρ_S = 12 ∫∫ uv c(u,v) du dv − 3 (Nelsen 2006, eq. 5.1.15'), a second route besides the CDF quadrature.
+    // ρ_S = 12 ∫∫ uv c(u,v) du dv − 3 (Nelsen 2006, section 5.1.2; numbering from memory), a second route besides the CDF quadrature.
     [Theory]
     [MemberData(nameof(CopulaTestCases.ModerateWithRotations), MemberType = typeof(CopulaTestCases))]
     public void SpearmanRhoMatchesMomentOfDensity(string family, int rotation, double[] parameters)
@@ -65,7 +65,7 @@ public class DependenceMeasureTests
         Assert.Equal(0.0, c.TailUpper);
     }
 
-    // Nelsen (2006), Example 5.5: τ = 1 − 1/θ; Example 5.22 (and Joe 2014, ch. 4): λ_U = 2 − 2^(1/θ), λ_L = 0.
+    // Nelsen (2006), Examples 5.5 and 5.22 (numbering from memory; also Joe 2014, ch. 4): λ_U = 2 − 2^(1/θ), λ_L = 0.
     [Theory]
     [InlineData(1.0)]
     [InlineData(1.5)]
@@ -82,7 +82,7 @@ public class DependenceMeasureTests
         Assert.Equal(c.TailUpper, (1 - 2 * t + c.Cdf(t, t)) / (1 - t), 1e-6);
     }
 
-    // Nelsen (2006), Example 5.22: λ_L = 2^(−1/θ) for Clayton; C(t,t)/t = (2 − t^θ)^(−1/θ) → λ_L with error O(t^θ).
+    // Nelsen (2006), Example 5.22 (numbering from memory): λ_L = 2^(−1/θ) for Clayton; C(t,t)/t = (2 − t^θ)^(−1/θ) → λ_L with error O(t^θ).
     [Theory]
     [InlineData(0.5)]
     [InlineData(3.0)]
@@ -101,7 +101,7 @@ public class DependenceMeasureTests
         var rotated = CopulaTestCases.Create(family, rotation, parameters);
         var inner = CopulaTestCases.Create(family, 0, parameters);
         // (U,V) → (1−U,1−V) swaps the diagonal corners; 90° and 270° move them off the diagonal
-        // (Joe 2014, section 1.7); Kendall's tau keeps or flips sign accordingly.
+        // (Joe 2014, section 1.7; numbering from memory); Kendall's tau keeps or flips sign accordingly.
         switch (rotation)
         {
             case 0:

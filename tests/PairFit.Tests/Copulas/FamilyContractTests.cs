@@ -13,7 +13,7 @@ public class FamilyContractTests
     }
 
     // One-sided families need the four rotations to reach every corner; radially symmetric families
-    // that already cover both signs (Gaussian, t, Frank) gain nothing from rotation (Joe 2014, section 1.7).
+    // that already cover both signs (Gaussian, t, Frank) gain nothing from rotation (Joe 2014, section 1.7; numbering from memory).
     [Theory]
     [InlineData("independence", new[] { 0 })]
     [InlineData("gaussian", new[] { 0 })]
@@ -84,7 +84,7 @@ public class FamilyContractTests
         Assert.Throws<ArgumentOutOfRangeException>(() => new JoeCopula(double.NaN));
     }
 
-    // Joe (2014, ch. 4) / Nelsen (2006, section 5.4): Joe λ_U = 2 − 2^(1/θ), λ_L = 0. Independent check
+    // Joe (2014, ch. 4) / Nelsen (2006, section 5.4; from memory): Joe λ_U = 2 − 2^(1/θ), λ_L = 0. Independent check
     // from the diagonal: (1 − 2t + C(t,t))/(1 − t) → λ_U with an error O(1 − t) (the diagonal is smooth at 1).
     [Theory]
     [InlineData(1.5)]

@@ -153,12 +153,42 @@ with open("bivariate_normal.csv", "w", newline="") as f:
         for rho in (-0.999, -0.95, -0.6, -0.2, 0.0, 0.1, 0.5, 0.8, 0.93, 0.999):
             w.writerow([r(h), r(k), r(rho), r(bvn_cdf(h, k, rho))])
 
+# ---------- 3b. bivariate t CDF on the t scale, non-integer and integer nu, including tails ----------
+with open("bivariate_t.csv", "w", newline="") as f:
+    w = csv.writer(f)
+    w.writerow(["h", "k", "rho", "nu", "cdf"])
+    for nu in (2.0, 2.5, 3.0, 4.5, 11.0, 30.5, 59.5):
+        for h, k in ((0, 0), (-1, 0.5), (1.5, -2), (-3, -3), (2, 2.5), (-8, 1), (-25, -20), (0.3, 40)):
+            for rho in (-0.95, -0.3, 0.0, 0.6, 0.97):
+                w.writerow([r(h), r(k), r(rho), r(nu), r(bvt_cdf(h, k, rho, nu))])
+
+# ---------- 3c. expm1 and log(1 - exp(-a)) (helpers every family leans on), in 250-digit decimal ----------
+def dexpm1(x):
+    # Taylor series below 1e-3 (the decimal exp cannot resolve 1 + 1e-300), exp - 1 above.
+    if abs(x) < Dec("1e-3"):
+        term, total = x, Dec(0)
+        for n in range(2, 60):
+            total += term
+            term = term * x / n
+        return total
+    return dexp(x) - 1
+
+with open("expm1.csv", "w", newline="") as f:
+    w = csv.writer(f)
+    w.writerow(["x", "expm1", "log1mexp"])
+    for x in (1e-300, 1e-17, 1e-10, 3e-6, 1e-3, 0.05, 0.2, 0.49, 0.5, 0.51, 1.0, 2.5, 30.0, 700.0):
+        for sx in (x, -x):
+            xd = D(sx)
+            em1 = dexpm1(xd)
+            l1me = dlog(-dexpm1(-xd)) if sx > 0 else ""
+            w.writerow([r(sx), r(em1), "" if l1me == "" else r(l1me)])
+
 # ---------- 4. univariate Student t quantiles and CDF ----------
 with open("student_t.csv", "w", newline="") as f:
     w = csv.writer(f)
     w.writerow(["nu", "p", "quantile"])
     for nu in (2.0, 2.5, 3.0, 4.5, 10.0, 60.0):
-        for p in (1e-12, 1e-8, 1e-4, 0.01, 0.2, 0.4999, 0.5, 0.6, 0.9, 0.999, 1 - 1e-7):
+        for p in (1e-12, 1e-8, 1e-4, 0.01, 0.0101, 0.03, 0.08, 0.2, 0.4999, 0.5, 0.6, 0.9, 0.999, 1 - 1e-7):
             w.writerow([r(nu), r(p), r(t_ppf(p, nu))])
 
 # ---------- 5. Kendall tau of Archimedean families (Genest and MacKay 1986) ----------
