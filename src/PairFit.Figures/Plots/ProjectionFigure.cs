@@ -22,7 +22,7 @@ public static class ProjectionFigure
         double[]? observed = sample is null ? null : Observed(projection.Expression, sample);
 
         var fig = new Figure(id, $"Distribution of {projection.Expression}",
-            $"Q = {projection.Expression}. (a) Density of Q under the fitted joint model ({projection.Method})" +
+            $"Q = {projection.Expression}. (a) Density of Q under the fitted joint model ({projection.Method}), up to its {DensityPanelQuantile:0.0%} quantile," +
             (observed is null ? "." : $" and the histogram of Q on the {observed.Length} observed pairs.") +
             " (b) Exceedance probability P(Q > q), log scale: fitted model (solid), independence and comonotonic coupling of the same marginals (at their reported quantiles), and the observed pairs (plotting positions i/(n+1)). " +
             "The gap between the independence and comonotonic curves shows how much the dependence matters for Q.",
@@ -34,13 +34,25 @@ public static class ProjectionFigure
         a.Axes.Add(PlotStyle.Linear(AxisPosition.Bottom, qTitle));
         a.Axes.Add(PlotStyle.Linear(AxisPosition.Left, "density", 0));
         a.Axes[1].MaximumPadding = 0.08;
+        // A heavy-tailed Q (a ratio, say) would squeeze the body of the density into a sliver, so
+        // panel (a) stops at the model's 99.5 % quantile; panel (b) shows the whole tail.
+        double shownUpTo = DisplayLimit(q, cdf, DensityPanelQuantile);
         if (observed is { Length: > 1 })
         {
-            var (edges, h) = FigureMath.Histogram(observed);
-            a.Series.Add(Series.Histogram(edges, h, title: "observed pairs"));
-            for (int k = 0; k < h.Length; k++) fig.Data.Add("a", "observed histogram bin [x, y) density", edges[k], edges[k + 1], h[k]);
+            var inRange = observed.Where(o => o <= shownUpTo).ToArray();
+            if (inRange.Length > 1)
+            {
+                var (edges, h) = FigureMath.Histogram(inRange);
+                // keep the density scale of the whole sample: the bins hold only the values shown
+                double share = (double)inRange.Length / observed.Length;
+                for (int k = 0; k < h.Length; k++) h[k] *= share;
+                a.Series.Add(Series.Histogram(edges, h, title: "observed pairs"));
+                for (int k = 0; k < h.Length; k++) fig.Data.Add("a", "observed histogram bin [x, y) density", edges[k], edges[k + 1], h[k]);
+            }
         }
-        a.Series.Add(Series.Line(q, dens, "fitted model", 0));
+        int last = q.Length;
+        while (last > 2 && q[last - 1] > shownUpTo) last--;
+        a.Series.Add(Series.Line(q[..last], dens[..last], "fitted model", 0));
         fig.Data.AddSeries("a", "fitted density", q, dens);
         PlotStyle.LegendBelow(a);
 
@@ -70,6 +82,17 @@ public static class ProjectionFigure
         fig.Add(a, 0, 0, 0.5, 1);
         fig.Add(b, 0.5, 0, 0.5, 1);
         return fig;
+    }
+
+    /// <summary>Probability level at which panel (a) stops.</summary>
+    private const double DensityPanelQuantile = 0.995;
+
+    /// <summary>The first grid value whose CDF reaches <paramref name="p"/> (the last grid value if none does).</summary>
+    private static double DisplayLimit(double[] q, double[] cdf, double p)
+    {
+        for (int i = 0; i < q.Length; i++)
+            if (cdf[i] >= p) return q[i];
+        return q[^1];
     }
 
     private static void AddComparison(PlotModel m, Figure fig, ProjectionComparison? c, string name, int style)
