@@ -165,7 +165,8 @@ public static class GoodnessOfFitTests
     /// </summary>
     public static double AndersonDarlingNormalPValue(double a, int n)
     {
-        double z = a * (1 + 0.75 / n + 2.25 / ((double)n * n));
+        // Same guard as for W*: the fitted exponent's parabola turns upward at z = 5.709/(2·0.0186).
+        double z = Math.Min(a * (1 + 0.75 / n + 2.25 / ((double)n * n)), 5.709 / (2 * 0.0186));
         double p = z >= 0.6 ? Math.Exp(1.2937 - 5.709 * z + 0.0186 * z * z)
             : z >= 0.34 ? Math.Exp(0.9177 - 4.279 * z - 1.38 * z * z)
             : z >= 0.2 ? 1 - Math.Exp(-8.318 + 42.796 * z - 59.938 * z * z)
@@ -180,6 +181,10 @@ public static class GoodnessOfFitTests
     public static double CramerVonMisesNormalPValue(double w, int n)
     {
         double z = w * (1 + 0.5 / n);
+        // The upper-tail fit exp(1.111 − 34.242 z + 12.832 z²) is a parabola that turns upward past
+        // its vertex z = 34.242/(2·12.832) ≈ 1.334 (p ≈ 4e−10 there), which would send p back to 1 for
+        // gross misfits. Beyond the vertex the vertex value is reported: an upper bound on p.
+        z = Math.Min(z, 34.242 / (2 * 12.832));
         double p = z >= 0.092 ? Math.Exp(1.111 - 34.242 * z + 12.832 * z * z)
             : z >= 0.051 ? Math.Exp(0.886 - 31.62 * z + 10.897 * z * z)
             : z >= 0.0275 ? 1 - Math.Exp(-5.903 + 179.546 * z - 1515.29 * z * z)
