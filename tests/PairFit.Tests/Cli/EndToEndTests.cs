@@ -17,13 +17,7 @@ public class EndToEndTests : IDisposable
 
     public void Dispose() => Directory.Delete(_dir, recursive: true);
 
-    private static (int Code, string Out, string Err) Run(params string[] args)
-    {
-        var o = new StringWriter();
-        var e = new StringWriter();
-        int code = PairFitCli.Run(args, o, e);
-        return (code, o.ToString(), e.ToString());
-    }
+    private static (int Code, string Out, string Err) Run(params string[] args) => CliShellTests.Run(args);
 
     [Fact]
     public void AnalyzeWritesACompleteReportFolderThatLaterCommandsReuse()

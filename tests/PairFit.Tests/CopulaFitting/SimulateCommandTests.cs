@@ -16,13 +16,7 @@ public sealed class SimulateCommandTests : IDisposable
 
     public void Dispose() => Directory.Delete(_dir, recursive: true);
 
-    private static (int Code, string Out, string Err) Run(params string[] args)
-    {
-        var o = new StringWriter();
-        var e = new StringWriter();
-        int code = PairFitCli.Run(args, o, e);
-        return (code, o.ToString(), e.ToString());
-    }
+    private static (int Code, string Out, string Err) Run(params string[] args) => PairFit.Tests.Cli.CliShellTests.Run(args);
 
     private static AnalysisResults Results(ModelSection? model) => new()
     {

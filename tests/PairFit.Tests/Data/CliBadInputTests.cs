@@ -5,13 +5,7 @@ namespace PairFit.Tests.Data;
 /// <summary>Bad input through the command line: exit code 2, one line naming the problem, no stack trace.</summary>
 public class CliBadInputTests : CsvFileTests
 {
-    private static (int Code, string Out, string Err) Run(params string[] args)
-    {
-        var o = new StringWriter();
-        var e = new StringWriter();
-        int code = PairFitCli.Run(args, o, e);
-        return (code, o.ToString(), e.ToString());
-    }
+    private static (int Code, string Out, string Err) Run(params string[] args) => PairFit.Tests.Cli.CliShellTests.Run(args);
 
     public static TheoryData<string, string?, string, string> AnalyzeCases() => new()
     {
