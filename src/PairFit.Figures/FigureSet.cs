@@ -138,7 +138,7 @@ public static class FigureSet
         foreach (var c in section.Candidates)
         {
             if (list.Count >= TailFigureCopulas) break;
-            if (!c.Converged || c.Family == IndependenceCopula.FamilyName) continue;
+            if (!c.Converged || c.Family == IndependenceLaw.FamilyName) continue;
             if (selected is not null && c.Family == selected.Family && c.Rotation == selected.Rotation) continue;
             try
             {

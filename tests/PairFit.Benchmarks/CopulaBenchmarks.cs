@@ -27,7 +27,7 @@ public class CopulaFitBench
     {
         var u = new double[N];
         var v = new double[N];
-        CopulaSampler.Fill(new ClaytonCopula(2.0), RandomStreams.For(1), u, v);
+        CopulaSampler.Fill(new ClaytonLaw(2.0), RandomStreams.For(1), u, v);
         _sample = new PairedSample(u, v, "u", "v");
     }
 
@@ -55,7 +55,7 @@ public class CopulaGofBench
     [GlobalSetup]
     public void Setup()
     {
-        _family = CopulaRegistry.Families.FirstOrDefault(f => f.Name == Family) ?? ClaytonCopula.Family;
+        _family = CopulaRegistry.Families.FirstOrDefault(f => f.Name == Family) ?? ClaytonLaw.Family;
         var truth = _family.Create(_family.StartFromTau(0.5)!);
         var x = new double[N];
         var y = new double[N];

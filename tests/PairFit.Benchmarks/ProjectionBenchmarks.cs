@@ -18,7 +18,7 @@ public class ProjectionBenchmarks
     private const int GridPoints = 512;
 
     private readonly JointModel _model = new(new LogNormalDistribution(1.0, 0.5), new NormalDistribution(2.0, 1.5),
-        RotatedCopula.Rotate(new ClaytonCopula(2.0), 180));
+        RotatedCopula.Rotate(new ClaytonLaw(2.0), 180));
 
     private QuadratureDistribution _sum = null!;
     private QuadratureDistribution _ratio = null!;

@@ -51,7 +51,7 @@ public static class DemoDataGenerator
     public static string StormCsv()
     {
         var rng = RandomStreams.For(Seed, 1);
-        var copula = RotatedCopula.Rotate(new ClaytonCopula(StormTheta), 180);
+        var copula = RotatedCopula.Rotate(new ClaytonLaw(StormTheta), 180);
         var runoff = new LogNormalDistribution(RunoffMu, RunoffSigma);
         var sb = new StringBuilder("event_id,season,rainfall_mm,runoff_mm\n");
         var start = new DateOnly(2001, 1, 1);
@@ -76,7 +76,7 @@ public static class DemoDataGenerator
     public static string LossCsv()
     {
         var rng = RandomStreams.For(Seed, 2);
-        var copula = RotatedCopula.Rotate(new ClaytonCopula(LossTheta), 180);
+        var copula = RotatedCopula.Rotate(new ClaytonLaw(LossTheta), 180);
         var lineA = new LogNormalDistribution(LineAMu, LineASigma);
         var sb = new StringBuilder("scenario_year,line_a_loss_millions,line_b_loss_millions\n");
         for (int i = 0; i < LossYears; i++)

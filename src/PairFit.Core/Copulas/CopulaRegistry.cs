@@ -10,13 +10,13 @@ public static class CopulaRegistry
 {
     public static readonly IReadOnlyList<ICopulaFamily> Families =
     [
-        IndependenceCopula.Family,
-        GaussianCopula.Family,
-        StudentTCopula.Family,
-        ClaytonCopula.Family,
-        GumbelCopula.Family,
-        FrankCopula.Family,
-        JoeCopula.Family,
+        IndependenceLaw.Family,
+        GaussianLaw.Family,
+        StudentTLaw.Family,
+        ClaytonLaw.Family,
+        GumbelLaw.Family,
+        FrankLaw.Family,
+        JoeLaw.Family,
     ];
 
     public static ICopulaFamily Find(string name)

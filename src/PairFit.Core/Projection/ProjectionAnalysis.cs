@@ -67,7 +67,7 @@ public static class ProjectionAnalysis
         };
 
         var main = method == Quadrature ? ByQuadrature(model, chain!, program, options, withGrid: true) : ByMonteCarlo(model, program, options, withGrid: true);
-        var independentModel = model with { Copula = new IndependenceCopula() };
+        var independentModel = model with { Copula = new IndependenceLaw() };
         var independence = method == Quadrature
             ? ByQuadrature(independentModel, chain!, program, options, withGrid: false)
             : ByMonteCarlo(independentModel, program, options, withGrid: false);

@@ -237,7 +237,7 @@ public sealed class QuadratureDistribution
     /// </summary>
     private static ICopula FlipV(ICopula copula) => copula switch
     {
-        IndependenceCopula => copula,
+        IndependenceLaw => copula,
         RotatedCopula r => RotatedCopula.Rotate(r.Inner, r.Rotation switch { 90 => 180, 180 => 90, _ => 0 }),
         _ when copula.Rotation == 0 => RotatedCopula.Rotate(copula, 270),
         _ => throw new ArgumentException($"copula rotation {copula.Rotation} without a RotatedCopula wrapper."),

@@ -51,9 +51,9 @@ public class EmpiricalCopulaTests
     public void StatisticEqualsTheDirectSum()
     {
         // S_n = Σ (C_n − C_θ)² (Genest, Rémillard and Beaudoin 2009), here with the O(n²) C_n and the Clayton CDF.
-        var sample = FittingTestData.Simulate(new ClaytonCopula(1.5), 300, 7);
+        var sample = FittingTestData.Simulate(new ClaytonLaw(1.5), 300, 7);
         double[] u = Ranks.PseudoObservations(sample.X), v = Ranks.PseudoObservations(sample.Y);
-        var copula = new ClaytonCopula(1.4);
+        var copula = new ClaytonLaw(1.4);
         var cn = BruteForce(u, v);
         double direct = 0;
         for (int i = 0; i < u.Length; i++) direct += Math.Pow(cn[i] - copula.Cdf(u[i], v[i]), 2);

@@ -11,7 +11,7 @@ public class GofSubsampleTests
     {
         var u = new double[n];
         var v = new double[n];
-        JointModel.SampleCopula(new ClaytonCopula(2.0), n, seed, u, v);
+        JointModel.SampleCopula(new ClaytonLaw(2.0), n, seed, u, v);
         return new PairedSample(u, v, "u", "v");
     }
 

@@ -19,12 +19,12 @@ public class GoodnessOfFitTests
     [Fact]
     public void PValueIsIdenticalForOneAndTwoThreads()
     {
-        var (u, v) = Pseudo(new ClaytonCopula(2.0), 200, 21);
-        var fitted = FitPseudo(ClaytonCopula.Family, 0, u, v);
+        var (u, v) = Pseudo(new ClaytonLaw(2.0), 200, 21);
+        var fitted = FitPseudo(ClaytonLaw.Family, 0, u, v);
         var s1 = new double[40];
         var s2 = new double[40];
-        var one = CramerVonMisesGof.Test(ClaytonCopula.Family, fitted, u, v, 40, seed: 9, maxDegreeOfParallelism: 1, replicateStatistics: s1);
-        var two = CramerVonMisesGof.Test(ClaytonCopula.Family, fitted, u, v, 40, seed: 9, maxDegreeOfParallelism: 2, replicateStatistics: s2);
+        var one = CramerVonMisesGof.Test(ClaytonLaw.Family, fitted, u, v, 40, seed: 9, maxDegreeOfParallelism: 1, replicateStatistics: s1);
+        var two = CramerVonMisesGof.Test(ClaytonLaw.Family, fitted, u, v, 40, seed: 9, maxDegreeOfParallelism: 2, replicateStatistics: s2);
         Assert.Equal(s1, s2);
         Assert.Equal(one, two);
         Assert.Equal(40, one.Replicates);
@@ -35,11 +35,11 @@ public class GoodnessOfFitTests
     public void WrongTailIsRejectedAndTrueFamilyIsNot()
     {
         // Clayton θ = 4 has strong lower-tail dependence; its survival (180°) version puts it in the upper tail.
-        var (u, v) = Pseudo(new ClaytonCopula(4.0), 300, 31);
-        var wrong = FitPseudo(ClaytonCopula.Family, 180, u, v);
-        var right = FitPseudo(ClaytonCopula.Family, 0, u, v);
-        var gWrong = CramerVonMisesGof.Test(ClaytonCopula.Family, wrong, u, v, 99, seed: 3);
-        var gRight = CramerVonMisesGof.Test(ClaytonCopula.Family, right, u, v, 99, seed: 3);
+        var (u, v) = Pseudo(new ClaytonLaw(4.0), 300, 31);
+        var wrong = FitPseudo(ClaytonLaw.Family, 180, u, v);
+        var right = FitPseudo(ClaytonLaw.Family, 0, u, v);
+        var gWrong = CramerVonMisesGof.Test(ClaytonLaw.Family, wrong, u, v, 99, seed: 3);
+        var gRight = CramerVonMisesGof.Test(ClaytonLaw.Family, right, u, v, 99, seed: 3);
         Assert.Equal(0.01, gWrong.PValue, 12); // no replicate reaches S_n: p = 1/(B+1)
         Assert.True(gWrong.Statistic > 5 * gRight.Statistic);
         Assert.True(gRight.PValue > 0.05, $"p = {gRight.PValue}");
@@ -48,7 +48,7 @@ public class GoodnessOfFitTests
     [Fact]
     public void AnalysisTestsTheSelectedFamilyOrAllOnRequest()
     {
-        var s = FittingTestData.Simulate(new ClaytonCopula(2.0), 150, 8);
+        var s = FittingTestData.Simulate(new ClaytonLaw(2.0), 150, 8);
         // Three families keep the bootstrap of every candidate cheap (the Student t CDF is a quadrature).
         string[] families = ["clayton", "gumbel", "frank"];
         var one = CopulaAnalysis.Fit(s, null, null, new CopulaOptions { Families = families, GofReplicates = 20, Seed = 4 });
@@ -71,9 +71,9 @@ public class GoodnessOfFitTests
         var p = new double[m];
         for (int k = 0; k < m; k++)
         {
-            var (u, v) = Pseudo(new ClaytonCopula(2.0), 100, 70_000 + k);
-            var fitted = FitPseudo(ClaytonCopula.Family, 0, u, v);
-            p[k] = CramerVonMisesGof.Test(ClaytonCopula.Family, fitted, u, v, b, seed: k).PValue;
+            var (u, v) = Pseudo(new ClaytonLaw(2.0), 100, 70_000 + k);
+            var fitted = FitPseudo(ClaytonLaw.Family, 0, u, v);
+            p[k] = CramerVonMisesGof.Test(ClaytonLaw.Family, fitted, u, v, b, seed: k).PValue;
         }
         Array.Sort(p);
         double d = 0;

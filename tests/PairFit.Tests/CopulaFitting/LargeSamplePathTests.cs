@@ -15,10 +15,10 @@ public class LargeSamplePathTests
     [InlineData(180)]
     public void NewtonPolishAgreesWithTheDirectSearch(int rotation)
     {
-        var sample = FittingTestData.Simulate(new ClaytonCopula(1.5), CopulaMaximumLikelihood.LargeSample + 5000, 77);
+        var sample = FittingTestData.Simulate(new ClaytonLaw(1.5), CopulaMaximumLikelihood.LargeSample + 5000, 77);
         double[] u = Ranks.PseudoObservations(sample.X), v = Ranks.PseudoObservations(sample.Y);
-        var fast = CopulaMaximumLikelihood.Fit(ClaytonCopula.Family, rotation, u, v, [1.0]);
-        var direct = CopulaMaximumLikelihood.Fit(ClaytonCopula.Family, rotation, u, v, [1.0], allowLargeSamplePath: false);
+        var fast = CopulaMaximumLikelihood.Fit(ClaytonLaw.Family, rotation, u, v, [1.0]);
+        var direct = CopulaMaximumLikelihood.Fit(ClaytonLaw.Family, rotation, u, v, [1.0], allowLargeSamplePath: false);
         Assert.True(fast.Converged && direct.Converged);
         // Both are maxima of the same smooth function: equal to well within the 1e-6 demanded of optima.
         Assert.True(fast.LogLikelihood >= direct.LogLikelihood - 1e-6, $"{fast.LogLikelihood:R} vs {direct.LogLikelihood:R}");

@@ -43,7 +43,7 @@ public class SelectionTests
     [Fact]
     public void RotationsThatCannotReachTheObservedSignAreExcludedWithAReason()
     {
-        var sample = FittingTestData.Simulate(new RotatedCopula(new ClaytonCopula(3.0), 90), 400, 3);
+        var sample = FittingTestData.Simulate(new RotatedCopula(new ClaytonLaw(3.0), 90), 400, 3);
         var r = CopulaAnalysis.Fit(sample, null, null, new CopulaOptions { GofReplicates = 0 });
         Assert.True(r.Section.EmpiricalKendallTau < -0.4);
         Assert.NotNull(r.Section.Excluded);
@@ -62,7 +62,7 @@ public class SelectionTests
     [Fact]
     public void CandidatesAreRankedByAicWithCountsAndImpliedTau()
     {
-        var sample = FittingTestData.Simulate(new ClaytonCopula(1.0), 300, 11);
+        var sample = FittingTestData.Simulate(new ClaytonLaw(1.0), 300, 11);
         var r = CopulaAnalysis.Fit(sample, null, null, new CopulaOptions { GofReplicates = 0 });
         var list = r.Section.Candidates;
         for (int i = 1; i < list.Count; i++)
@@ -84,7 +84,7 @@ public class SelectionTests
     [Fact]
     public void SectionSerialisesWithTheAgreedNames()
     {
-        var sample = FittingTestData.Simulate(new ClaytonCopula(2.0), 200, 5);
+        var sample = FittingTestData.Simulate(new ClaytonLaw(2.0), 200, 5);
         var r = CopulaAnalysis.Fit(sample, null, null, new CopulaOptions { GofReplicates = 19, Seed = 1 });
         var results = new AnalysisResults
         {
@@ -116,7 +116,7 @@ public class SelectionTests
     [Fact]
     public void BadOptionsAndDegenerateDataAreReportedClearly()
     {
-        var sample = FittingTestData.Simulate(new ClaytonCopula(2.0), 50, 1);
+        var sample = FittingTestData.Simulate(new ClaytonLaw(2.0), 50, 1);
         Assert.Throws<PairFitInputException>(() => CopulaAnalysis.Fit(sample, null, null, new CopulaOptions { Method = "bogus" }));
         Assert.Throws<PairFitInputException>(() => CopulaAnalysis.Fit(sample, null, null, new CopulaOptions { Method = "ifm" }));
         Assert.Throws<PairFitInputException>(() => CopulaAnalysis.Fit(sample, null, null, new CopulaOptions { Families = ["no-such-family"] }));

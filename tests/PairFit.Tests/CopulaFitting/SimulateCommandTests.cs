@@ -31,7 +31,7 @@ public sealed class SimulateCommandTests : IDisposable
 
     private string SavedModel()
     {
-        var model = new JointModel(new NormalDistribution(100, 15), new LogNormalDistribution(1, 0.4), new RotatedCopula(new ClaytonCopula(2.0), 180));
+        var model = new JointModel(new NormalDistribution(100, 15), new LogNormalDistribution(1, 0.4), new RotatedCopula(new ClaytonLaw(2.0), 180));
         string path = Path.Combine(_dir, "results.json");
         ResultsFile.Write(Results(ModelSection.From(model, "peak flow", "volume")), path);
         return path;
@@ -109,7 +109,7 @@ public sealed class SimulateCommandTests : IDisposable
     [Fact]
     public void CopulaTableListsCandidatesInAicOrderAndTheExclusions()
     {
-        var sample = FittingTestData.Simulate(new ClaytonCopula(2.0), 300, 2);
+        var sample = FittingTestData.Simulate(new ClaytonLaw(2.0), 300, 2);
         var r = CopulaAnalysis.Fit(sample, null, null, new CopulaOptions { GofReplicates = 19, Seed = 3 });
         var w = new StringWriter();
         CopulaTable.Write(r.Section, w);

@@ -53,7 +53,7 @@ public class SimulationRecoveryTests
     [Fact]
     public void IfmAndFullRecoverCopulaAndMarginals()
     {
-        var truth = new JointModel(new NormalDistribution(10, 2), new LogNormalDistribution(0, 0.5), new ClaytonCopula(2.0));
+        var truth = new JointModel(new NormalDistribution(10, 2), new LogNormalDistribution(0, 0.5), new ClaytonLaw(2.0));
         var (x, y) = truth.Sample(N, 42);
         var sample = new Core.Data.PairedSample(x, y, "x", "y");
         // IFM with the true marginals standing in for fitted ones.

@@ -63,7 +63,7 @@ public class TwoParameterFittingTests
         public ClaytonIndependenceMixture(double theta, double weight)
         {
             if (!(weight > 0 && weight < 1)) throw new ArgumentOutOfRangeException(nameof(weight));
-            _clayton = new ClaytonCopula(theta);
+            _clayton = new ClaytonLaw(theta);
             Weight = weight;
         }
 

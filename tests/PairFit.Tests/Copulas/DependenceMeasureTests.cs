@@ -56,7 +56,7 @@ public class DependenceMeasureTests
     [InlineData(0.75)]
     public void GaussianClosedFormsMatchKruskal(double rho)
     {
-        ICopula c = new GaussianCopula(rho);
+        ICopula c = new GaussianLaw(rho);
         Assert.Equal(2 / Math.PI * Math.Asin(rho), c.KendallTau, 15);
         Assert.Equal(6 / Math.PI * Math.Asin(rho / 2), c.SpearmanRho, 15);
         // Independent: Spearman by quadrature of 12∫∫C − 3 (CDF by Genz's bivariate normal), ~1e−7 accurate.
@@ -73,7 +73,7 @@ public class DependenceMeasureTests
     [InlineData(30.0)]
     public void GumbelClosedFormsMatchNelsen(double theta)
     {
-        ICopula c = new GumbelCopula(theta);
+        ICopula c = new GumbelLaw(theta);
         Assert.Equal(1 - 1 / theta, c.KendallTau, 15);
         Assert.Equal(2 - Math.Pow(2, 1 / theta), c.TailUpper, 15);
         Assert.Equal(0.0, c.TailLower);
@@ -88,7 +88,7 @@ public class DependenceMeasureTests
     [InlineData(3.0)]
     public void ClaytonTailDependenceMatchesNelsen(double theta)
     {
-        ICopula c = new ClaytonCopula(theta);
+        ICopula c = new ClaytonLaw(theta);
         Assert.Equal(Math.Pow(2, -1 / theta), c.TailLower, 15);
         double t = 1e-12;
         Assert.Equal(c.TailLower, c.Cdf(t, t) / t, 1e-5);

@@ -77,11 +77,11 @@ public class FamilyContractTests
     [Fact]
     public void InvalidParametersAreRejected()
     {
-        Assert.Throws<ArgumentOutOfRangeException>(() => new GaussianCopula(1.0));
-        Assert.Throws<ArgumentOutOfRangeException>(() => new StudentTCopula(0.5, 0));
-        Assert.Throws<ArgumentOutOfRangeException>(() => new GumbelCopula(0.99));
-        Assert.Throws<ArgumentOutOfRangeException>(() => new FrankCopula(0));
-        Assert.Throws<ArgumentOutOfRangeException>(() => new JoeCopula(double.NaN));
+        Assert.Throws<ArgumentOutOfRangeException>(() => new GaussianLaw(1.0));
+        Assert.Throws<ArgumentOutOfRangeException>(() => new StudentTLaw(0.5, 0));
+        Assert.Throws<ArgumentOutOfRangeException>(() => new GumbelLaw(0.99));
+        Assert.Throws<ArgumentOutOfRangeException>(() => new FrankLaw(0));
+        Assert.Throws<ArgumentOutOfRangeException>(() => new JoeLaw(double.NaN));
     }
 
     // Joe (2014, ch. 4) / Nelsen (2006, section 5.4; from memory): Joe λ_U = 2 − 2^(1/θ), λ_L = 0. Independent check
@@ -91,7 +91,7 @@ public class FamilyContractTests
     [InlineData(6.0)]
     public void JoeTailDependenceMatchesPublishedForm(double theta)
     {
-        ICopula c = new JoeCopula(theta);
+        ICopula c = new JoeLaw(theta);
         Assert.Equal(2 - Math.Pow(2, 1 / theta), c.TailUpper, 15);
         Assert.Equal(0.0, c.TailLower);
         double t = 1 - 1e-7;
@@ -106,7 +106,7 @@ public class FamilyContractTests
     [InlineData(4.0, 2e-4)]
     public void StudentTTailDependenceIsTheDiagonalLimit(double nu, double relativeTolerance)
     {
-        ICopula c = new StudentTCopula(0.5, nu);
+        ICopula c = new StudentTLaw(0.5, nu);
         double t = 1e-9;
         Assert.Equal(c.TailLower, c.Cdf(t, t) / t, relativeTolerance * c.TailLower);
     }

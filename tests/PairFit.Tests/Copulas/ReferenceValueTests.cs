@@ -146,7 +146,7 @@ public class ReferenceValueTests
     {
         foreach (var r in ReadReference("t_tail_dependence.csv"))
         {
-            var c = new StudentTCopula(Parse(r[0]), Parse(r[1]));
+            var c = new StudentTLaw(Parse(r[0]), Parse(r[1]));
             Assert.Equal(Parse(r[2]), c.TailLower, 1e-13);
             Assert.Equal(c.TailLower, c.TailUpper);
         }

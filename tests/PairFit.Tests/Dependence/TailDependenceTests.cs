@@ -31,7 +31,7 @@ public class TailDependenceTests
         // empirical λ_L(t) = C_n(t,t)/t against the closed form C(t,t)/t = (2t^-θ − 1)^(-1/θ)/t
         // (Clayton 1978; Nelsen 2006 eq. 4.2.1), and λ_U(t) against (1 − 2t + C(t,t))/(1 − t).
         const int n = 20000;
-        var copula = new ClaytonCopula(2.0);
+        var copula = new ClaytonLaw(2.0);
         var rng = RandomStreams.For(42);
         var u = new double[n];
         var v = new double[n];

@@ -14,7 +14,7 @@ public class JointAnalysisTests
     {
         // Under independence P(X > a, Y > b) = S_X(a) S_Y(b), P(X > a or Y > b) = 1 − F_X(a) F_Y(b), and the
         // Kendall distribution of the product copula is K(t) = t − t ln t (Genest and Rivest 1993; Nelsen 2006, §5.1.4, from memory).
-        var model = new JointModel(new NormalDistribution(0, 1), new ExponentialDistribution(1), new IndependenceCopula());
+        var model = new JointModel(new NormalDistribution(0, 1), new ExponentialDistribution(1), new IndependenceLaw());
         var r = JointAnalysis.Compute(model, new JointOptions { XValue = 1.0, YValue = 2.0, EventsPerYear = 4 });
         double u = Normal.CDF(0, 1, 1.0), v = 1 - Math.Exp(-2.0);
         double both = (1 - u) * Math.Exp(-2.0), either = 1 - u * v;
@@ -44,7 +44,7 @@ public class JointAnalysisTests
         // K(t) = t − φ(t)/φ'(t) (Genest and Rivest 1993; Nelsen 2006, Theorem 4.3.4, from memory);
         // Clayton φ(t) = (t^−θ − 1)/θ gives K(t) = t + (t − t^(θ+1))/θ.
         double exact = t + (t - Math.Pow(t, theta + 1)) / theta;
-        Assert.Equal(exact, KendallDistribution.Cdf(new ClaytonCopula(theta), t), 8);
+        Assert.Equal(exact, KendallDistribution.Cdf(new ClaytonLaw(theta), t), 8);
     }
 
     [Theory]
@@ -53,7 +53,7 @@ public class JointAnalysisTests
     [InlineData(270)]
     public void KendallDistributionOfRotationsMatchesSimulation(int rotation)
     {
-        var copula = RotatedCopula.Rotate(new ClaytonCopula(3.0), rotation);
+        var copula = RotatedCopula.Rotate(new ClaytonLaw(3.0), rotation);
         const int n = 40_000;
         var u = new double[n];
         var v = new double[n];
@@ -97,7 +97,7 @@ public class JointAnalysisTests
     [Fact]
     public void DesignIsolinesHaveTheTargetReturnPeriod()
     {
-        var copula = RotatedCopula.Rotate(new ClaytonCopula(2.0), 180);
+        var copula = RotatedCopula.Rotate(new ClaytonLaw(2.0), 180);
         var model = new JointModel(new LogNormalDistribution(3, 0.5), new ExponentialDistribution(0.1), copula);
         var r = JointAnalysis.Compute(model, new JointOptions { XValue = 30, YValue = 20, EventsPerYear = 2, ReturnPeriod = 50 });
         double p = 0.5 / 50; // μ / T
@@ -127,7 +127,7 @@ public class JointAnalysisTests
     {
         // Exchangeable copula and equal marginals: the joint density and each level curve are symmetric about
         // y = x, and the density along the curve peaks on it (symmetry argument; checked here, not cited).
-        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new ClaytonCopula(2.0));
+        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new ClaytonLaw(2.0));
         var r = JointAnalysis.Compute(model, new JointOptions { XValue = 1, YValue = 1, ReturnPeriod = 100 });
         foreach (var d in r.Designs!)
             Assert.True(Math.Abs(d.MostLikely!.X - d.MostLikely.Y) < 1e-4, $"{d.Kind}: ({d.MostLikely.X}, {d.MostLikely.Y})");
@@ -136,7 +136,7 @@ public class JointAnalysisTests
     [Fact]
     public void BadOptionsAreInputErrors()
     {
-        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceCopula());
+        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceLaw());
         Assert.Contains("must exceed the mean interarrival time", Assert.Throws<PairFitInputException>(() =>
             JointAnalysis.Compute(model, new JointOptions { XValue = 1, YValue = 1, EventsPerYear = 0.5, ReturnPeriod = 1.5 })).Message);
         Assert.Contains("--events-per-year", Assert.Throws<PairFitInputException>(() =>

@@ -12,11 +12,11 @@ namespace PairFit.Tests.Projection;
 public class ProjectionAnalysisTests
 {
     [Fact]
-    public void NormalSumUnderGaussianCopulaGivesNormalMomentsQuantilesAndRiskMeasures()
+    public void NormalSumUnderGaussianLawGivesNormalMomentsQuantilesAndRiskMeasures()
     {
         // X + Y ~ N(0.5, 4 + 0.49 + 2·0.6·2·0.7) (standard bivariate-normal result; from memory);
         // TVaR_α of N(μ, σ²) = μ + σ φ(z_α)/(1 − α) (McNeil, Frey and Embrechts 2015, expected shortfall of the normal law; from memory).
-        var model = new JointModel(new NormalDistribution(1, 2), new NormalDistribution(-0.5, 0.7), new GaussianCopula(0.6));
+        var model = new JointModel(new NormalDistribution(1, 2), new NormalDistribution(-0.5, 0.7), new GaussianLaw(0.6));
         var r = ProjectionAnalysis.Project(model, "x + y", "a", "b", null, new ProjectionOptions
         {
             Thresholds = [3.0], Levels = [0.95, 0.99], Seed = 11, GridPoints = 65,
@@ -47,7 +47,7 @@ public class ProjectionAnalysisTests
     {
         // Comonotonic additivity of quantiles and TVaR (Dhaene, Denuit, Goovaerts, Kaas and Vyncke 2002;
         // Dhaene et al. 2006; from memory). TVaR of Exp(λ): VaR + 1/λ; of LN(μ, σ): e^(μ+σ²/2) Φ(σ − z_α)/(1 − α).
-        var model = new JointModel(new ExponentialDistribution(0.5), new LogNormalDistribution(1.0, 0.5), new ClaytonCopula(1.0));
+        var model = new JointModel(new ExponentialDistribution(0.5), new LogNormalDistribution(1.0, 0.5), new ClaytonLaw(1.0));
         var r = ProjectionAnalysis.Project(model, "x + y", "a", "b", null, new ProjectionOptions
         {
             Method = "montecarlo", MonteCarloDraws = 2000, Levels = [0.95, 0.99], Seed = 3,
@@ -70,7 +70,7 @@ public class ProjectionAnalysisTests
     [Fact]
     public void CauchyRatioHasNoMeanAndSaysSo()
     {
-        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceCopula());
+        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceLaw());
         var r = ProjectionAnalysis.Project(model, "y / x", "a", "b", null, new ProjectionOptions { Probabilities = [0.75, 0.99], Seed = 5, GridPoints = 32 });
         Assert.Null(r.Mean);
         Assert.Null(r.Sd);
@@ -86,7 +86,7 @@ public class ProjectionAnalysisTests
     public void MonteCarloQuantilesCarryIntervalsThatCoverTheTruth()
     {
         // Hypoexponential sum again (Ross 2014, hypoexponential law), quantiles from the exact CDF by bisection.
-        var model = new JointModel(new ExponentialDistribution(1.0), new ExponentialDistribution(2.5), new IndependenceCopula());
+        var model = new JointModel(new ExponentialDistribution(1.0), new ExponentialDistribution(2.5), new IndependenceLaw());
         var r = ProjectionAnalysis.Project(model, "x * 1 + max(y, 0) * 1 + 0 * x * y", "a", "b", null, new ProjectionOptions { Seed = 9, MonteCarloDraws = 50_000 });
         Assert.Equal(ProjectionAnalysis.MonteCarlo, r.Method); // y occurs twice: Monte Carlo
         double Exact(double p)
@@ -109,7 +109,7 @@ public class ProjectionAnalysisTests
     [Fact]
     public void CheckReportsAgreementOfTheTwoMethods()
     {
-        var model = new JointModel(new LogNormalDistribution(0, 0.5), new ExponentialDistribution(1), RotatedCopula.Rotate(new ClaytonCopula(2), 180));
+        var model = new JointModel(new LogNormalDistribution(0, 0.5), new ExponentialDistribution(1), RotatedCopula.Rotate(new ClaytonLaw(2), 180));
         var r = ProjectionAnalysis.Project(model, "y / x", "a", "b", null, new ProjectionOptions
         {
             Check = true, Seed = 1, MonteCarloDraws = 20_000, GridPoints = 64, Probabilities = [0.5], Levels = [0.9],
@@ -123,7 +123,7 @@ public class ProjectionAnalysisTests
     public void EmpiricalComparisonUsesTheDataAndColumnNames()
     {
         var data = new PairedSample([1, 2, 3, 4, 5], [2, 2, 2, 2, 12], "rain", "runoff");
-        var model = new JointModel(new LogNormalDistribution(1, 0.5), new LogNormalDistribution(1, 0.5), new IndependenceCopula());
+        var model = new JointModel(new LogNormalDistribution(1, 0.5), new LogNormalDistribution(1, 0.5), new IndependenceLaw());
         var r = ProjectionAnalysis.Project(model, "runoff - rain", "rain", "runoff", data, new ProjectionOptions
         {
             Probabilities = [0.5], Thresholds = [0.5], Levels = [0.8], Method = "montecarlo", MonteCarloDraws = 1000,
@@ -143,7 +143,7 @@ public class ProjectionAnalysisTests
     [InlineData("2 + 3", null, 1)]
     public void MethodFollowsTheExpression(string expression, string? method, int throws)
     {
-        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceCopula());
+        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceLaw());
         var o = new ProjectionOptions { Probabilities = [0.5], MonteCarloDraws = 1000 };
         if (throws == 1)
         {
@@ -157,7 +157,7 @@ public class ProjectionAnalysisTests
     [Fact]
     public void BadOptionsAreInputErrors()
     {
-        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceCopula());
+        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceLaw());
         Assert.Contains("outside (0, 1)", Assert.Throws<PairFitInputException>(() =>
             ProjectionAnalysis.Project(model, "x + y", "a", "b", null, new ProjectionOptions { Probabilities = [1.5] })).Message);
         Assert.Contains("risk level", Assert.Throws<PairFitInputException>(() =>
@@ -171,7 +171,7 @@ public class ProjectionAnalysisTests
     [Fact]
     public void ResultsFileUsesTheAgreedFieldNames()
     {
-        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceCopula());
+        var model = new JointModel(new NormalDistribution(0, 1), new NormalDistribution(0, 1), new IndependenceLaw());
         var r = ProjectionAnalysis.Project(model, "x - y", "a", "b", null, new ProjectionOptions
         {
             Probabilities = [0.5], Thresholds = [1], Method = "montecarlo", MonteCarloDraws = 1000, GridPoints = 32,

@@ -34,7 +34,7 @@ public class QuadratureReferenceTests
             {
                 // Same model as make_reference.py: X lognormal(1, 0.5), Y normal(2, 1.5), Clayton θ = 2 rotated.
                 var model = new JointModel(new LogNormalDistribution(1.0, 0.5), new NormalDistribution(2.0, 1.5),
-                    RotatedCopula.Rotate(new ClaytonCopula(2.0), rotation));
+                    RotatedCopula.Rotate(new ClaytonLaw(2.0), rotation));
                 Cache[(rotation, expression)] = qd = QuadratureClosedFormTests.Quadrature(model, expression);
             }
             return qd;

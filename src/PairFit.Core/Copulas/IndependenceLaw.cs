@@ -1,7 +1,7 @@
 namespace PairFit.Core.Copulas;
 
 /// <summary>Independence copula Π(u, v) = uv; density 1, no parameters.</summary>
-public sealed class IndependenceCopula : ICopula
+public sealed class IndependenceLaw : ICopula
 {
     public const string FamilyName = "independence";
     public static readonly ICopulaFamily Family = new IndependenceFamily();
@@ -27,6 +27,6 @@ public sealed class IndependenceCopula : ICopula
         public IReadOnlyList<double> UpperBounds => [];
         public IReadOnlyList<int> Rotations => [0];
         public double[]? StartFromTau(double tau) => [];
-        public ICopula Create(IReadOnlyList<double> parameters) => new IndependenceCopula();
+        public ICopula Create(IReadOnlyList<double> parameters) => new IndependenceLaw();
     }
 }

@@ -14,7 +14,7 @@ namespace PairFit.Core.Copulas;
 /// both passed in, so neither overflows (|θ| = 80) nor cancels in the corners.
 /// </para>
 /// </summary>
-public sealed class FrankCopula : ICopula
+public sealed class FrankLaw : ICopula
 {
     public const string FamilyName = "frank";
     public const double MinTheta = -100.0;
@@ -26,7 +26,7 @@ public sealed class FrankCopula : ICopula
     private readonly double _a, _logA, _log1mExpA;
     private readonly bool _negative;
 
-    public FrankCopula(double theta)
+    public FrankLaw(double theta)
     {
         if (theta == 0 || !double.IsFinite(theta))
             throw new ArgumentOutOfRangeException(nameof(theta), $"frank needs a finite theta != 0 (got {theta}).");
@@ -163,6 +163,6 @@ public sealed class FrankCopula : ICopula
             return [tau < 0 ? -theta : theta];
         }
 
-        public ICopula Create(IReadOnlyList<double> parameters) => new FrankCopula(parameters[0]);
+        public ICopula Create(IReadOnlyList<double> parameters) => new FrankLaw(parameters[0]);
     }
 }

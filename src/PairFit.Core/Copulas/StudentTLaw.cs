@@ -10,11 +10,11 @@ namespace PairFit.Core.Copulas;
 /// never rotated; equal lower and upper tail dependence. ν above 60 is indistinguishable from the
 /// Gaussian copula at practical sample sizes, and below 2 the law has no variance.
 /// </summary>
-public sealed class StudentTCopula : IEllipticalCopula
+public sealed class StudentTLaw : IEllipticalCopula
 {
     public const string FamilyName = "student-t";
-    public const double MinRho = GaussianCopula.MinRho;
-    public const double MaxRho = GaussianCopula.MaxRho;
+    public const double MinRho = GaussianLaw.MinRho;
+    public const double MaxRho = GaussianLaw.MaxRho;
     public const double MinNu = 2.0;
     public const double MaxNu = 60.0;
     /// <summary>ν used to start a fit; the likelihood is flat in ν, so a middle value is as good as any.</summary>
@@ -24,7 +24,7 @@ public sealed class StudentTCopula : IEllipticalCopula
     private readonly StudentTFunctions _margin, _conditional;
     private readonly double _logConstant, _oneMinusRhoSquared, _halfNuPlusTwo, _halfNuPlusOne;
 
-    public StudentTCopula(double rho, double nu)
+    public StudentTLaw(double rho, double nu)
     {
         if (!(rho > -1 && rho < 1))
             throw new ArgumentOutOfRangeException(nameof(rho), $"student-t needs -1 < rho < 1 (got {rho}).");
@@ -141,6 +141,6 @@ public sealed class StudentTCopula : IEllipticalCopula
         // ρ from τ = (2/π) arcsin ρ; ν is not identified by τ, start in the middle of its range.
         public double[]? StartFromTau(double tau) => [Math.Clamp(Math.Sin(Math.PI * tau / 2), MinRho, MaxRho), StartNu];
 
-        public ICopula Create(IReadOnlyList<double> parameters) => new StudentTCopula(parameters[0], parameters[1]);
+        public ICopula Create(IReadOnlyList<double> parameters) => new StudentTLaw(parameters[0], parameters[1]);
     }
 }

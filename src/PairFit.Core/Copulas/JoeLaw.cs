@@ -10,7 +10,7 @@ namespace PairFit.Core.Copulas;
 /// S = a + b − ab = a + b(1 − a) has no cancellation, and is kept in logs (log a = θ log ū) so
 /// that ū^θ does not underflow (θ = 30, u = 1 − 1e−12).
 /// </summary>
-public sealed class JoeCopula : ICopula
+public sealed class JoeLaw : ICopula
 {
     public const string FamilyName = "joe";
     public const double MinTheta = 1.0;
@@ -20,7 +20,7 @@ public sealed class JoeCopula : ICopula
     private const int TauSeriesTerms = 5000;
     private readonly double _thetaMinusOne, _inverseTheta;
 
-    public JoeCopula(double theta)
+    public JoeLaw(double theta)
     {
         if (!(theta >= 1) || !double.IsFinite(theta))
             throw new ArgumentOutOfRangeException(nameof(theta), $"joe needs theta >= 1 (got {theta}).");
@@ -113,7 +113,7 @@ public sealed class JoeCopula : ICopula
         return MonotoneRoot.Solve(ref g, lo, hi, 0.5 * (lo + hi));
     }
 
-    private readonly struct LogBEquation(JoeCopula copula, double logA, double logUBar, double logW) : IMonotoneFunction
+    private readonly struct LogBEquation(JoeLaw copula, double logA, double logUBar, double logW) : IMonotoneFunction
     {
         public double Evaluate(double logB, out double slope)
         {
@@ -168,6 +168,6 @@ public sealed class JoeCopula : ICopula
             return [Brent.FindRoot(t => TauOf(t) - tau, MinTheta, MaxTheta, 1e-10)];
         }
 
-        public ICopula Create(IReadOnlyList<double> parameters) => new JoeCopula(parameters[0]);
+        public ICopula Create(IReadOnlyList<double> parameters) => new JoeLaw(parameters[0]);
     }
 }

@@ -6,7 +6,7 @@ namespace PairFit.Core.Copulas;
 /// Gaussian (normal) copula, −1 &lt; ρ &lt; 1: C(u, v) = Φ2(Φ⁻¹(u), Φ⁻¹(v); ρ) (Joe 2014, ch. 4).
 /// Radially symmetric and covers both signs, so it is never rotated; no tail dependence.
 /// </summary>
-public sealed class GaussianCopula : IEllipticalCopula
+public sealed class GaussianLaw : IEllipticalCopula
 {
     public const string FamilyName = "gaussian";
     /// <summary>Fitting range of ρ; the formulas themselves hold for any |ρ| &lt; 1.</summary>
@@ -16,7 +16,7 @@ public sealed class GaussianCopula : IEllipticalCopula
 
     private readonly double _oneMinusRhoSquared, _sqrtOneMinusRhoSquared, _halfLogOneMinusRhoSquared;
 
-    public GaussianCopula(double rho)
+    public GaussianLaw(double rho)
     {
         if (!(rho > -1 && rho < 1))
             throw new ArgumentOutOfRangeException(nameof(rho), $"gaussian needs -1 < rho < 1 (got {rho}).");
@@ -88,6 +88,6 @@ public sealed class GaussianCopula : IEllipticalCopula
         // Inverting τ = (2/π) arcsin ρ: ρ = sin(πτ/2).
         public double[]? StartFromTau(double tau) => [Math.Clamp(Math.Sin(Math.PI * tau / 2), MinRho, MaxRho)];
 
-        public ICopula Create(IReadOnlyList<double> parameters) => new GaussianCopula(parameters[0]);
+        public ICopula Create(IReadOnlyList<double> parameters) => new GaussianLaw(parameters[0]);
     }
 }

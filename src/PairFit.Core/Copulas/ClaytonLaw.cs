@@ -8,14 +8,14 @@ namespace PairFit.Core.Copulas;
 /// All formulas are evaluated through L = log(u^−θ + v^−θ − 1), computed with a log-sum-exp,
 /// so that u^−θ never overflows (θ = 50 at u = 1e−10 would be 1e500).
 /// </summary>
-public sealed class ClaytonCopula : ICopula
+public sealed class ClaytonLaw : ICopula
 {
     public const string FamilyName = "clayton";
     public const double MinTheta = 1e-6;
     public const double MaxTheta = 200.0;
     public static readonly ICopulaFamily Family = new ClaytonFamily();
 
-    public ClaytonCopula(double theta)
+    public ClaytonLaw(double theta)
     {
         if (!(theta > 0) || !double.IsFinite(theta))
             throw new ArgumentOutOfRangeException(nameof(theta), $"clayton needs theta > 0 (got {theta}).");
@@ -94,6 +94,6 @@ public sealed class ClaytonCopula : ICopula
         public double[]? StartFromTau(double tau)
             => tau <= 0 ? null : [Math.Clamp(2 * tau / (1 - tau), MinTheta, MaxTheta)];
 
-        public ICopula Create(IReadOnlyList<double> parameters) => new ClaytonCopula(parameters[0]);
+        public ICopula Create(IReadOnlyList<double> parameters) => new ClaytonLaw(parameters[0]);
     }
 }

@@ -8,7 +8,7 @@ namespace PairFit.Core.Copulas;
 /// independence; rotate for the other corners. Everything goes through log A, A = x^θ + y^θ,
 /// computed as a log-sum-exp so that x^θ neither overflows nor underflows (θ = 30, u = 1e−12).
 /// </summary>
-public sealed class GumbelCopula : ICopula
+public sealed class GumbelLaw : ICopula
 {
     public const string FamilyName = "gumbel";
     public const double MinTheta = 1.0;
@@ -17,7 +17,7 @@ public sealed class GumbelCopula : ICopula
 
     private readonly double _thetaMinusOne, _inverseTheta;
 
-    public GumbelCopula(double theta)
+    public GumbelLaw(double theta)
     {
         if (!(theta >= 1) || !double.IsFinite(theta))
             throw new ArgumentOutOfRangeException(nameof(theta), $"gumbel needs theta >= 1 (got {theta}).");
@@ -142,6 +142,6 @@ public sealed class GumbelCopula : ICopula
         public double[]? StartFromTau(double tau)
             => tau < 0 ? null : [Math.Clamp(1 / (1 - tau), MinTheta, MaxTheta)];
 
-        public ICopula Create(IReadOnlyList<double> parameters) => new GumbelCopula(parameters[0]);
+        public ICopula Create(IReadOnlyList<double> parameters) => new GumbelLaw(parameters[0]);
     }
 }
