@@ -22,7 +22,9 @@ public static class ReportBuilder
         "the goodness-of-fit tests and the figures do that, and a test that does not reject is not proof of fit. " +
         "Probabilities and return periods beyond the range of the data are extrapolations that rest on the " +
         "chosen families' tails, and their uncertainty grows quickly with the return period. Tail-dependence " +
-        "estimates from a few hundred pairs are rough.";
+        "estimates from a few hundred pairs are rough. Where these results feed decisions that can hurt " +
+        "people or property (flood design, dam safety, capital, reserving), they support, and do not replace, " +
+        "local design codes, agency guidance and licensed professional judgement.";
 
     public static ReportDocument Build(AnalysisResults results, IReadOnlyList<FigureFile> figures)
     {

@@ -89,6 +89,8 @@ public sealed class ReportWriterTests(HostileReportFixture fixture) : IClassFixt
         Assert.Contains("## Projections", md);
         Assert.Contains("pairfit test", md);
         Assert.Contains("## Caution", md);
+        // The project's rule for results that feed safety and capital decisions.
+        Assert.Contains("do not replace, local design codes, agency guidance and licensed professional judgement", md);
         Assert.Contains($"| copula | {results.Model!.Copula.Family}", md);
         // a missing value is a dash, never NaN
         Assert.DoesNotContain("NaN", md);
