@@ -34,5 +34,11 @@ public static class ConsoleSummary
             w.WriteLine();
             ProjectionTable.Write(j, w);
         }
+        if (r.Model is not null)
+        {
+            w.WriteLine();
+            w.WriteLine("Caution: these results support, and do not replace, local design codes, agency guidance and");
+            w.WriteLine("licensed professional judgement; check the goodness of fit and figures before relying on the model.");
+        }
     }
 }
