@@ -60,6 +60,7 @@ public static class AnalysisPipeline
     /// <summary>Runs every stage on a sample; also returns the fitted joint model (null when not fitted).</summary>
     public static (AnalysisResults Results, JointModel? Model) Run(PairedSample sample, AnalysisOptions options, IProgress<string>? progress = null)
     {
+        ValidateBeforeFitting(sample, options);
         progress?.Report($"dependence measures on {sample.Count} pairs");
         var dependence = DependenceAnalysis.Compute(sample);
 
@@ -122,6 +123,27 @@ public static class AnalysisPipeline
             Settings = Settings(options),
         };
         return (results, model);
+    }
+
+    /// <summary>
+    /// Checks every option that a later stage would reject, so a typo in an expression or a family
+    /// name is reported at once rather than after minutes of fitting.
+    /// </summary>
+    private static void ValidateBeforeFitting(PairedSample sample, AnalysisOptions o)
+    {
+        if (!o.FitModel) return;
+        foreach (var expression in o.Projections)
+            if (ExpressionParser.TryParse(expression, sample.XName, sample.YName, out var error) is null)
+                throw new Common.PairFitInputException(error!.Message);
+        string method = (o.Copula.Method ?? "").ToLowerInvariant();
+        if (!CopulaOptions.Methods.Contains(method))
+            throw new Common.PairFitInputException($"copula method '{o.Copula.Method}' is not one of {string.Join(", ", CopulaOptions.Methods)}.");
+        foreach (var family in o.Copula.Families ?? [])
+            Copulas.CopulaRegistry.Find(family);
+        foreach (var m in new[] { o.XMarginal, o.YMarginal })
+            foreach (var family in m.Forced is { } f ? [f] : m.Candidates ?? [])
+                if (!MarginalRegistry.FamilyNames.Contains(family.Trim(), StringComparer.OrdinalIgnoreCase))
+                    throw new Common.PairFitInputException($"unknown marginal family '{family}'; choose from: {string.Join(", ", MarginalRegistry.FamilyNames)}.");
     }
 
     private static Dictionary<string, string> Settings(AnalysisOptions o)

@@ -78,6 +78,21 @@ public class EndToEndTests : IDisposable
         Assert.Equal(501, File.ReadAllLines(pairs).Length); // header + 500 pairs
     }
 
+    [Theory]
+    [InlineData("--project", "x + * y", "position 5")]
+    [InlineData("--copula-method", "maximum", "copula method")]
+    [InlineData("--copulas", "clayton,bogus", "bogus")]
+    [InlineData("--x-marginal", "nosuch", "nosuch")]
+    public void OptionMistakesAreReportedBeforeAnyFitting(string option, string value, string expected)
+    {
+        string csv = Path.Combine(_dir, DemoDataGenerator.LossFile);
+        File.WriteAllText(csv, DemoDataGenerator.LossCsv());
+        var (code, _, error) = Run("analyze", csv, "--x", "2", "--y", "3", option, value);
+        Assert.Equal(PairFitCli.ExitBadInput, code);
+        Assert.Contains(expected, error);
+        Assert.DoesNotContain("marginal fits", error); // stopped before the first fitting stage
+    }
+
     [Fact]
     public void DemoDataFilesMatchTheirGenerator()
     {
