@@ -52,6 +52,8 @@ public static class MarginalTable
         }
         table.Write(w);
         w.WriteLine($"Selected: {v.Selected}{(v.SelectedBecause is { } b ? $" ({b})" : "")}");
+        foreach (var warning in v.Warnings ?? [])
+            w.WriteLine($"  warning: {warning}");
         if (v.Candidates.Any(c => c.Converged == false)) w.WriteLine("  ! = optimiser did not meet its tolerance");
         for (int i = 0; i < notes.Count; i++) w.WriteLine($"  [{i + 1}] {string.Join(", ", notes[i].Families)}: {notes[i].Text}");
         foreach (var group in v.Candidates.Where(c => c.Gof?.PValueNote is not null).GroupBy(c => c.Gof!.PValueNote!))

@@ -112,8 +112,23 @@ public static class MarginalAnalysis
                 SelectedBecause = because,
                 N = sample.N,
                 Candidates = candidates,
+                Warnings = SupportWarnings(chosen.Distribution, sample),
             },
         };
+    }
+
+    /// <summary>
+    /// A three-parameter law (Pearson III, GEV, ...) fitted to non-negative data may still put
+    /// probability below zero; simulations from it then give impossible negative depths or losses.
+    /// Say so, with the amount, rather than let it pass unseen.
+    /// </summary>
+    private static IReadOnlyList<string>? SupportWarnings(IMarginalDistribution selected, MarginalSample sample)
+    {
+        if (sample.Min < 0) return null;
+        double below = selected.Cdf(0.0);
+        if (!(below > 1e-6)) return null;
+        return [$"the selected {selected.Family} law puts probability {below.ToString("G3", CultureInfo.InvariantCulture)} below 0 although every value is non-negative; " +
+                 "simulated or projected values can be negative: consider a family bounded at 0 (force one with --x-marginal / --y-marginal)."];
     }
 
     private static int Rank(MarginalCandidate c, IMarginalDistribution? d) =>

@@ -22,6 +22,9 @@ public sealed record MarginalVariableSection
     /// <summary>Number of values fitted.</summary>
     public int N { get; init; }
 
+    /// <summary>What a user should know about the selected law, e.g. that it puts probability below 0 for non-negative data.</summary>
+    public IReadOnlyList<string>? Warnings { get; init; }
+
     /// <summary>Candidates ranked by AIC (lowest first); skipped and failed ones last.</summary>
     public required IReadOnlyList<MarginalCandidate> Candidates { get; init; }
 }
