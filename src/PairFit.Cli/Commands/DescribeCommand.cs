@@ -34,6 +34,10 @@ public static class DescribeCommand
         w.WriteLine("  missing: empty, NA, NaN, null and --missing tokens; skewness: adjusted Fisher-Pearson G1 of the numbers.");
         foreach (var c in d.Columns.Where(c => c.NonFinite > 0))
             w.WriteLine($"  Note: column '{c.Name}' has {c.NonFinite} infinite value(s); analyze refuses them (mark them with --missing or correct them).");
+        // Loggers and agencies often write a missing reading as -999, -9999 or -99999 (common practice);
+        // such a minimum, far below the median, is worth a hint before it enters a fit as a real value.
+        foreach (var c in d.Columns.Where(c => c.Min is { } m && m is -999 or -9999 or -99999 && c.Median is { } med && med > m / 10))
+            w.WriteLine($"  Note: column '{c.Name}' has the minimum {c.Min}; if that marks a missing reading, add --missing {c.Min}.");
         foreach (var c in d.Columns.Where(c => c.Type == "mixed"))
             w.WriteLine($"  Note: column '{c.Name}' mixes numbers and {c.Text} text value(s); analyze drops the text rows as non-numeric.");
     }
