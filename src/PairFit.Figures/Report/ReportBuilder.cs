@@ -128,9 +128,15 @@ public static class ReportBuilder
 
     internal static string Int(int v) => v.ToString(CultureInfo.InvariantCulture);
 
-    /// <summary>Four significant digits; "–" for a missing value (never "NaN").</summary>
+    /// <summary>
+    /// Four significant digits, except that values from 1,000 to 1e9 (log-likelihoods, AIC) keep one
+    /// decimal, so that candidates a few AIC units apart stay distinguishable; "–" for a missing value
+    /// (never "NaN").
+    /// </summary>
     internal static string Num(double? v)
-        => v is { } d && double.IsFinite(d) ? d.ToString("G4", CultureInfo.InvariantCulture) : "–";
+        => v is not { } d || !double.IsFinite(d) ? "–"
+            : Math.Abs(d) >= 1e3 && Math.Abs(d) < 1e9 ? d.ToString("F1", CultureInfo.InvariantCulture)
+            : d.ToString("G4", CultureInfo.InvariantCulture);
 
     /// <summary>p-values: three significant digits, and "&lt; 1e-16" below double resolution.</summary>
     internal static string P(double? v)
